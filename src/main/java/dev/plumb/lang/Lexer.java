@@ -1,0 +1,159 @@
+package dev.plumb.lang;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Turns source text into tokens. Newlines end statements except inside open parentheses, where
+ * a statement may continue; a {@code [ ... ]} unit is one token holding the text inside.
+ */
+public final class Lexer {
+    private final String src;
+    private final Diagnostics diagnostics;
+    private final List<Token> tokens = new ArrayList<>();
+    private int pos;
+    private int line = 1;
+    private int lineStart;
+    private int parenDepth;
+
+    public Lexer(String src, Diagnostics diagnostics) {
+        this.src = src;
+        this.diagnostics = diagnostics;
+    }
+
+    public List<Token> tokens() {
+        while (pos < src.length()) {
+            scanToken();
+        }
+        add(TokenType.NEWLINE, "", pos);
+        add(TokenType.EOF, "", pos);
+        return List.copyOf(tokens);
+    }
+
+    private void scanToken() {
+        int start = pos;
+        char ch = src.charAt(pos++);
+        switch (ch) {
+            case ' ', '\t', '\r' -> { }
+            case '\n' -> newline(start);
+            case '#' -> { while (pos < src.length() && src.charAt(pos) != '\n') pos++; }
+            case '(' -> { parenDepth++; add(TokenType.LPAREN, "(", start); }
+            case ')' -> { parenDepth = Math.max(0, parenDepth - 1); add(TokenType.RPAREN, ")", start); }
+            case ',' -> add(TokenType.COMMA, ",", start);
+            case ':' -> add(TokenType.COLON, ":", start);
+            case '=' -> add(TokenType.EQUALS, "=", start);
+            case '~' -> add(TokenType.TILDE, "~", start);
+            case '%' -> add(TokenType.PERCENT, "%", start);
+            case '\'' -> add(TokenType.PRIME, "'", start);
+            case '*' -> add(TokenType.STAR, "*", start);
+            case '/' -> add(TokenType.SLASH, "/", start);
+            case '^' -> add(TokenType.CARET, "^", start);
+            case '±' -> add(TokenType.PLUS_MINUS, "+-", start);
+            case '+' -> {
+                if (peek() == '-') { pos++; add(TokenType.PLUS_MINUS, "+-", start); }
+                else add(TokenType.PLUS, "+", start);
+            }
+            case '-' -> add(TokenType.MINUS, "-", start);
+            case '<' -> {
+                if (peek() == '=') { pos++; add(TokenType.LESS_EQUAL, "<=", start); }
+                else add(TokenType.LESS, "<", start);
+            }
+            case '>' -> {
+                if (peek() == '=') { pos++; add(TokenType.GREATER_EQUAL, ">=", start); }
+                else add(TokenType.GREATER, ">", start);
+            }
+            case '[' -> unit(start);
+            case '"' -> string(start);
+            default -> {
+                if (isDigit(ch) || (ch == '.' && isDigit(peek()))) number(start);
+                else if (isIdentStart(ch)) identifier(start);
+                else {
+                    error(start, 1, "unexpected character '" + ch + "'");
+                }
+            }
+        }
+    }
+
+    private void newline(int start) {
+        if (parenDepth == 0) add(TokenType.NEWLINE, "\n", start);
+        line++;
+        lineStart = pos;
+    }
+
+    private void number(int start) {
+        while (isDigit(peek())) pos++;
+        if (peek() == '.' && isDigit(peekAt(1)) || peek() == '.' && !isIdentStart(peekAt(1))) {
+            pos++;
+            while (isDigit(peek())) pos++;
+        }
+        if ((peek() == 'e' || peek() == 'E')
+                && (isDigit(peekAt(1)) || ((peekAt(1) == '-' || peekAt(1) == '+') && isDigit(peekAt(2))))) {
+            pos += 2;
+            while (isDigit(peek())) pos++;
+        }
+        add(TokenType.NUMBER, src.substring(start, pos), start);
+    }
+
+    private void identifier(int start) {
+        while (isIdentPart(peek())) pos++;
+        add(TokenType.IDENT, src.substring(start, pos), start);
+    }
+
+    private void unit(int start) {
+        int close = pos;
+        while (close < src.length() && src.charAt(close) != ']' && src.charAt(close) != '\n') close++;
+        if (close >= src.length() || src.charAt(close) != ']') {
+            error(start, close - start, "unit not closed: expected ']'");
+            pos = close;
+            return;
+        }
+        tokens.add(new Token(TokenType.UNIT, src.substring(pos, close),
+                new Span(line, start - lineStart + 1, line, close + 1 - lineStart + 1)));
+        pos = close + 1;
+    }
+
+    private void string(int start) {
+        int close = pos;
+        while (close < src.length() && src.charAt(close) != '"' && src.charAt(close) != '\n') close++;
+        if (close >= src.length() || src.charAt(close) != '"') {
+            error(start, close - start, "string not closed: expected '\"' before the end of the line");
+            pos = close;
+            return;
+        }
+        tokens.add(new Token(TokenType.STRING, src.substring(pos, close),
+                new Span(line, start - lineStart + 1, line, close + 1 - lineStart + 1)));
+        pos = close + 1;
+    }
+
+    private void add(TokenType type, String text, int start) {
+        int length = Math.max(1, pos - start);
+        tokens.add(new Token(type, text, Span.at(line, start - lineStart + 1, length)));
+    }
+
+    private void error(int start, int length, String message) {
+        Span span = Span.at(line, start - lineStart + 1, length);
+        diagnostics.error(span, message);
+        tokens.add(new Token(TokenType.ERROR, src.substring(start, Math.min(src.length(), start + Math.max(1, length))), span));
+    }
+
+    private char peek() {
+        return peekAt(0);
+    }
+
+    private char peekAt(int ahead) {
+        int i = pos + ahead;
+        return i < src.length() ? src.charAt(i) : '\0';
+    }
+
+    private static boolean isDigit(char c) {
+        return c >= '0' && c <= '9';
+    }
+
+    private static boolean isIdentStart(char c) {
+        return Character.isLetter(c) || c == '_';
+    }
+
+    private static boolean isIdentPart(char c) {
+        return Character.isLetterOrDigit(c) || c == '_';
+    }
+}

@@ -1,0 +1,461 @@
+package dev.plumb.lang;
+
+import dev.plumb.lang.Expr.BinaryOp;
+import dev.plumb.lang.Expr.CompareOp;
+import dev.plumb.lang.Stmt.Assumption;
+import dev.plumb.lang.Stmt.Equation;
+import dev.plumb.lang.Stmt.Label;
+import dev.plumb.lang.Stmt.Tolerance;
+import dev.plumb.lang.Stmt.UnitText;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Set;
+
+/**
+ * Recursive-descent parser for the plumb language: one method per grammar rule. After an error
+ * it skips to the end of the line, so one run reports every malformed statement.
+ */
+public final class Parser {
+
+    /** The statement keywords, in the order the language reference lists them. */
+    public static final List<String> STATEMENTS = List.of("title", "param", "coord", "let", "unknown",
+            "relation", "boundary", "step", "claim", "scaling", "case", "expect", "show");
+
+    private static final Set<String> RESERVED = Set.of("if", "then", "else", "from", "to", "at", "within", "in");
+
+    private final List<Token> tokens;
+    private final Diagnostics diagnostics;
+    private int current;
+
+    private static final class ParseError extends RuntimeException {
+        ParseError() {
+            super(null, null, false, false);
+        }
+    }
+
+    public Parser(List<Token> tokens, Diagnostics diagnostics) {
+        this.tokens = tokens;
+        this.diagnostics = diagnostics;
+    }
+
+    /** Lexes and parses a whole file. */
+    public static Program parse(SourceFile source, Diagnostics diagnostics) {
+        List<Token> tokens = new Lexer(source.text(), diagnostics).tokens();
+        return new Parser(tokens, diagnostics).program(source);
+    }
+
+    public Program program(SourceFile source) {
+        List<Stmt> statements = new ArrayList<>();
+        while (!check(TokenType.EOF)) {
+            if (match(TokenType.NEWLINE)) continue;
+            try {
+                statements.add(statement());
+                if (!check(TokenType.NEWLINE) && !check(TokenType.EOF)) {
+                    throw error(peek(), "expected the end of the statement, found " + peek().describe());
+                }
+            } catch (ParseError e) {
+                synchronize();
+            }
+        }
+        return new Program(source, statements);
+    }
+
+    // ---- statements -------------------------------------------------------------------------
+
+    private Stmt statement() {
+        Token keyword = peek();
+        if (keyword.is(TokenType.ERROR)) throw new ParseError();
+        if (!keyword.is(TokenType.IDENT) || !STATEMENTS.contains(keyword.text())) {
+            throw error(keyword, "expected a statement (" + String.join(", ", STATEMENTS) + "), found "
+                    + keyword.describe() + suggestion(keyword));
+        }
+        advance();
+        return switch (keyword.text()) {
+            case "title" -> title(keyword);
+            case "param" -> param(keyword);
+            case "coord" -> coord(keyword);
+            case "let" -> let(keyword);
+            case "unknown" -> unknown(keyword);
+            case "relation" -> {
+                Label label = label();
+                Equation eq = equation("relation");
+                yield new Stmt.Relation(label, eq, keyword.span().to(eq.span()));
+            }
+            case "boundary" -> {
+                Label label = label();
+                Equation eq = equation("boundary condition");
+                yield new Stmt.Boundary(label, eq, keyword.span().to(eq.span()));
+            }
+            case "step" -> {
+                Label label = label();
+                Equation eq = equation("step");
+                yield new Stmt.Step(label, eq, keyword.span().to(eq.span()));
+            }
+            case "claim" -> {
+                Label label = label();
+                Equation eq = equation("claim");
+                yield new Stmt.Claim(label, eq, keyword.span().to(eq.span()));
+            }
+            case "scaling" -> scaling(keyword);
+            case "case" -> caseStatement(keyword);
+            case "expect" -> expect(keyword);
+            case "show" -> show(keyword);
+            default -> throw new IllegalStateException(keyword.text());
+        };
+    }
+
+    private static String suggestion(Token t) {
+        if (!t.is(TokenType.IDENT)) return "";
+        String lower = t.text().toLowerCase(java.util.Locale.ROOT);
+        for (String s : STATEMENTS) {
+            if (s.equals(lower) || Names.editDistance(s, lower) == 1) return "; did you mean '" + s + "'?";
+        }
+        return "";
+    }
+
+    private Stmt title(Token keyword) {
+        Token text = consume(TokenType.STRING, "expected the title in double quotes, e.g. title \"Uniform sphere\"");
+        return new Stmt.Title(text.text(), keyword.span().to(text.span()));
+    }
+
+    private Stmt param(Token keyword) {
+        Token name = identifier("expected the parameter's name after 'param'");
+        UnitText unit = optionalUnit();
+        Assumption assumption = null;
+        Expr value = null;
+        Span end = unit != null ? unit.span() : name.span();
+        if (check(TokenType.GREATER) || check(TokenType.GREATER_EQUAL)) {
+            Token op = advance();
+            Token zero = consume(TokenType.NUMBER, "expected 0 after '" + op.text() + "': a parameter may be assumed > 0 or >= 0");
+            if (Double.parseDouble(zero.text()) != 0.0) {
+                throw error(zero, "only '> 0' and '>= 0' assumptions are supported, found " + op.text() + " " + zero.text());
+            }
+            assumption = op.is(TokenType.GREATER) ? Assumption.POSITIVE : Assumption.NON_NEGATIVE;
+            end = zero.span();
+        } else if (match(TokenType.EQUALS)) {
+            value = expression();
+            if (unit != null && value instanceof Expr.Num n) {
+                value = new Expr.Quantity(n.value(), n.text(), unit.text(), unit.span(), n.span());
+            }
+            end = value.span();
+        }
+        return new Stmt.Param(name.text(), name.span(), unit, assumption, value, keyword.span().to(end));
+    }
+
+    private Stmt coord(Token keyword) {
+        Token name = identifier("expected the coordinate's name after 'coord'");
+        UnitText unit = optionalUnit();
+        expectWord("from", "expected 'from' and the interval, e.g. coord r [m] from 0 to R");
+        Expr from = expression();
+        expectWord("to", "expected 'to' and the end of the interval");
+        Expr to = expression();
+        return new Stmt.Coord(name.text(), name.span(), unit, from, to, keyword.span().to(to.span()));
+    }
+
+    private Stmt let(Token keyword) {
+        Token name = identifier("expected the name being defined after 'let'");
+        List<String> params = new ArrayList<>();
+        if (match(TokenType.LPAREN)) {
+            do {
+                params.add(identifier("expected a parameter name").text());
+            } while (match(TokenType.COMMA));
+            consume(TokenType.RPAREN, "expected ')' after the parameters of '" + name.text() + "'");
+        }
+        consume(TokenType.EQUALS, "expected '=' and the definition of '" + name.text() + "'");
+        Expr body = expression();
+        return new Stmt.Let(name.text(), name.span(), params, body, keyword.span().to(body.span()));
+    }
+
+    private Stmt unknown(Token keyword) {
+        Token name = identifier("expected the unknown's name after 'unknown'");
+        List<String> args = new ArrayList<>();
+        Span end = name.span();
+        if (match(TokenType.LPAREN)) {
+            do {
+                args.add(identifier("expected the coordinate the profile depends on").text());
+            } while (match(TokenType.COMMA));
+            end = consume(TokenType.RPAREN, "expected ')'").span();
+        }
+        UnitText unit = optionalUnit();
+        if (unit != null) end = unit.span();
+        return new Stmt.Unknown(name.text(), name.span(), args, unit, keyword.span().to(end));
+    }
+
+    private Stmt scaling(Token keyword) {
+        Label label = label();
+        Expr lhs = expression();
+        consume(TokenType.TILDE, "expected '~' in a scaling claim, e.g. scaling s: P(0) ~ G*M^2/R^4");
+        Expr rhs = expression();
+        return new Stmt.Scaling(label, lhs, rhs, keyword.span().to(rhs.span()));
+    }
+
+    private Stmt caseStatement(Token keyword) {
+        Label label = label();
+        if (!label.present()) {
+            throw error(peek(), "a case needs a name, e.g. case sun: M = 1 [Msun], R = 1 [Rsun]");
+        }
+        List<Stmt.Assignment> assignments = new ArrayList<>();
+        do {
+            assignments.add(assignment());
+        } while (match(TokenType.COMMA));
+        return new Stmt.Case(label, assignments, keyword.span().to(assignments.get(assignments.size() - 1).span()));
+    }
+
+    private Stmt.Assignment assignment() {
+        Token name = identifier("expected a parameter name and its value, e.g. M = 1 [Msun]");
+        consume(TokenType.EQUALS, "expected '=' after '" + name.text() + "'");
+        Expr value = expression();
+        Expr uncertainty = null;
+        if (match(TokenType.PLUS_MINUS)) {
+            uncertainty = expression();
+            // "1.0 +- 0.02 [Msun]": the unit written once at the end applies to both numbers.
+            if (value instanceof Expr.Num n && uncertainty instanceof Expr.Quantity q) {
+                value = new Expr.Quantity(n.value(), n.text(), q.unit(), q.unitSpan(), n.span());
+            }
+        }
+        Span end = uncertainty != null ? uncertainty.span() : value.span();
+        return new Stmt.Assignment(name.text(), name.span(), value, uncertainty, name.span().to(end));
+    }
+
+    private Stmt expect(Token keyword) {
+        Label label = label();
+        Expr lhs = expression();
+        String caseName = null;
+        Span caseSpan = Span.NONE;
+        if (matchWord("at")) {
+            Token c = identifier("expected the name of a case after 'at'");
+            caseName = c.text();
+            caseSpan = c.span();
+        }
+        consume(TokenType.EQUALS, "expected '=' and the expected value, e.g. expect v: P(0) at sun = 1.3e14 [Pa] within 0.1%");
+        Expr expected = expression();
+        expectWord("within", "expected 'within' and a tolerance, e.g. within 0.1%");
+        Tolerance tolerance = tolerance();
+        return new Stmt.Expect(label, lhs, caseName, caseSpan, expected, tolerance, keyword.span().to(tolerance.span()));
+    }
+
+    private Tolerance tolerance() {
+        Expr amount = unary();
+        if (check(TokenType.PERCENT)) {
+            Token pct = advance();
+            if (!(amount instanceof Expr.Num n)) throw error(pct, "a percentage tolerance must be a plain number, e.g. 0.1%");
+            return new Tolerance(n.value() / 100.0, null, amount.span().to(pct.span()));
+        }
+        if (amount instanceof Expr.Num n) return new Tolerance(n.value(), null, n.span());
+        return new Tolerance(Double.NaN, amount, amount.span());
+    }
+
+    private Stmt show(Token keyword) {
+        Expr expr = expression();
+        UnitText unit = null;
+        if (matchWord("in")) {
+            unit = optionalUnit();
+            if (unit == null) throw error(peek(), "expected a unit in brackets after 'in', e.g. show P(0) in [GPa]");
+        }
+        return new Stmt.Show(expr, unit, keyword.span().to(unit != null ? unit.span() : expr.span()));
+    }
+
+    private Label label() {
+        if (check(TokenType.IDENT) && peekNext().is(TokenType.COLON)) {
+            Token name = advance();
+            advance();
+            return new Label(name.text(), name.span());
+        }
+        return Label.NONE;
+    }
+
+    private Equation equation(String what) {
+        Expr lhs = expression();
+        if (!check(TokenType.EQUALS)) {
+            throw error(peek(), "expected '=' in the " + what + ", found " + peek().describe());
+        }
+        advance();
+        Expr rhs = expression();
+        return new Equation(lhs, rhs, lhs.span().to(rhs.span()));
+    }
+
+    private UnitText optionalUnit() {
+        if (check(TokenType.UNIT)) {
+            Token u = advance();
+            return new UnitText(u.text(), u.span());
+        }
+        return null;
+    }
+
+    // ---- expressions ------------------------------------------------------------------------
+
+    public Expr expression() {
+        return additive();
+    }
+
+    private Expr additive() {
+        Expr left = term();
+        while (check(TokenType.PLUS) || check(TokenType.MINUS)) {
+            Token op = advance();
+            Expr right = term();
+            left = new Expr.Binary(op.is(TokenType.PLUS) ? BinaryOp.ADD : BinaryOp.SUB, left, right, left.span().to(right.span()));
+        }
+        if (check(TokenType.PLUS_MINUS)) {
+            throw error(peek(), "'+-' gives an uncertainty and is only allowed in a case, e.g. case a: M = 1.0 +- 0.02 [Msun]");
+        }
+        return left;
+    }
+
+    private Expr term() {
+        Expr left = unary();
+        while (check(TokenType.STAR) || check(TokenType.SLASH)) {
+            Token op = advance();
+            Expr right = unary();
+            left = new Expr.Binary(op.is(TokenType.STAR) ? BinaryOp.MUL : BinaryOp.DIV, left, right, left.span().to(right.span()));
+        }
+        return left;
+    }
+
+    private Expr unary() {
+        if (check(TokenType.MINUS)) {
+            Token minus = advance();
+            Expr operand = unary();
+            return new Expr.Neg(operand, minus.span().to(operand.span()));
+        }
+        if (match(TokenType.PLUS)) return unary();
+        return power();
+    }
+
+    private Expr power() {
+        Expr base = primary();
+        if (match(TokenType.CARET)) {
+            Expr exponent = unary();
+            return new Expr.Binary(BinaryOp.POW, base, exponent, base.span().to(exponent.span()));
+        }
+        return base;
+    }
+
+    private Expr primary() {
+        Token t = peek();
+        if (t.is(TokenType.NUMBER)) {
+            advance();
+            double value = Double.parseDouble(t.text());
+            if (check(TokenType.UNIT)) {
+                Token u = advance();
+                return new Expr.Quantity(value, t.text(), u.text(), u.span(), t.span().to(u.span()));
+            }
+            return new Expr.Num(value, t.text(), t.span());
+        }
+        if (t.isWord("if")) return ifExpression();
+        if (t.is(TokenType.IDENT)) {
+            if (RESERVED.contains(t.text())) throw error(t, "expected an expression, found the keyword '" + t.text() + "'");
+            advance();
+            int order = 0;
+            Span primes = t.span();
+            while (check(TokenType.PRIME)) {
+                primes = primes.to(advance().span());
+                order++;
+            }
+            if (check(TokenType.LPAREN)) return call(t, order);
+            if (order > 0) throw error(peek(), "expected '(' after " + t.text() + "'".repeat(order) + ": write the point, e.g. " + t.text() + "'(r)");
+            return new Expr.Name(t.text(), t.span());
+        }
+        if (t.is(TokenType.LPAREN)) {
+            advance();
+            Expr inner = expression();
+            consume(TokenType.RPAREN, "expected ')' to close the '(' at column " + t.span().column());
+            return inner;
+        }
+        if (t.is(TokenType.UNIT)) {
+            throw error(t, "a unit must follow a number, e.g. 1 [" + t.text() + "]");
+        }
+        if (t.is(TokenType.ERROR)) throw new ParseError();
+        throw error(t, "expected an expression, found " + t.describe());
+    }
+
+    private Expr call(Token callee, int order) {
+        consume(TokenType.LPAREN, "expected '('");
+        List<Expr> args = new ArrayList<>();
+        if (!check(TokenType.RPAREN)) {
+            do {
+                args.add(expression());
+            } while (match(TokenType.COMMA));
+        }
+        Token close = consume(TokenType.RPAREN, "expected ')' or ',' in the call of '" + callee.text() + "'");
+        return new Expr.Call(callee.text(), callee.span(), order, args, callee.span().to(close.span()));
+    }
+
+    private Expr ifExpression() {
+        Token ifToken = advance();
+        Expr left = additive();
+        CompareOp op = switch (peek().type()) {
+            case LESS -> CompareOp.LT;
+            case LESS_EQUAL -> CompareOp.LE;
+            case GREATER -> CompareOp.GT;
+            case GREATER_EQUAL -> CompareOp.GE;
+            default -> throw error(peek(), "expected a comparison (<, <=, >, >=) after 'if', found " + peek().describe());
+        };
+        advance();
+        Expr right = additive();
+        Expr.Condition condition = new Expr.Condition(op, left, right, left.span().to(right.span()));
+        expectWord("then", "expected 'then' after the condition");
+        Expr then = expression();
+        expectWord("else", "expected 'else': every 'if' needs both branches");
+        Expr otherwise = expression();
+        return new Expr.If(condition, then, otherwise, ifToken.span().to(otherwise.span()));
+    }
+
+    // ---- helpers ----------------------------------------------------------------------------
+
+    private Token identifier(String message) {
+        if (check(TokenType.IDENT) && !RESERVED.contains(peek().text())) return advance();
+        throw error(peek(), message + ", found " + peek().describe());
+    }
+
+    private void expectWord(String word, String message) {
+        if (!matchWord(word)) throw error(peek(), message + ", found " + peek().describe());
+    }
+
+    private boolean matchWord(String word) {
+        if (peek().isWord(word)) {
+            advance();
+            return true;
+        }
+        return false;
+    }
+
+    private boolean match(TokenType type) {
+        if (check(type)) {
+            advance();
+            return true;
+        }
+        return false;
+    }
+
+    private boolean check(TokenType type) {
+        return peek().is(type);
+    }
+
+    private Token consume(TokenType type, String message) {
+        if (check(type)) return advance();
+        throw error(peek(), message + ", found " + peek().describe());
+    }
+
+    private Token advance() {
+        Token t = tokens.get(current);
+        if (!t.is(TokenType.EOF)) current++;
+        return t;
+    }
+
+    private Token peek() {
+        return tokens.get(current);
+    }
+
+    private Token peekNext() {
+        return tokens.get(Math.min(current + 1, tokens.size() - 1));
+    }
+
+    private ParseError error(Token at, String message) {
+        diagnostics.error(at.span(), message);
+        return new ParseError();
+    }
+
+    private void synchronize() {
+        while (!check(TokenType.NEWLINE) && !check(TokenType.EOF)) advance();
+    }
+}
