@@ -24,6 +24,10 @@ public final class Diagnostics {
         add(Diagnostic.note(span, message, details));
     }
 
+    public int errorCount() {
+        return (int) items.stream().filter(d -> d.severity() == Severity.ERROR).count();
+    }
+
     public boolean hasErrors() {
         return items.stream().anyMatch(d -> d.severity() == Severity.ERROR);
     }

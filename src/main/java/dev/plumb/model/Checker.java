@@ -1,0 +1,411 @@
+package dev.plumb.model;
+
+import dev.plumb.lang.Diagnostics;
+import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Program;
+import dev.plumb.lang.Span;
+import dev.plumb.lang.Stmt;
+import dev.plumb.units.Constants;
+import dev.plumb.units.Dimension;
+import dev.plumb.units.UnitCatalog;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.IdentityHashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * Turns a parsed program into a checked {@link Model}: resolves every name, finds duplicate
+ * declarations and labels and definition cycles, infers and checks the units of every line,
+ * and evaluates fixed parameters and case values in SI.
+ */
+public final class Checker {
+
+    private final Program program;
+    private final Diagnostics diagnostics;
+    private final Map<String, Stmt> declarations = new LinkedHashMap<>();
+    private final Map<String, Symbol.FixedParam> fixed = new HashMap<>();
+    private final Set<String> evaluating = new HashSet<>();
+    private final List<Check> unitChecks = new ArrayList<>();
+    private Stmt.Coord coord;
+    private UnitInference inference;
+
+    private Checker(Program program, Diagnostics diagnostics) {
+        this.program = program;
+        this.diagnostics = diagnostics;
+    }
+
+    public static Model check(Program program, Diagnostics diagnostics) {
+        return new Checker(program, diagnostics).run();
+    }
+
+    private Model run() {
+        declare();
+        checkLabels();
+        checkDefinitionCycles();
+        ConstantEvaluator constants = new ConstantEvaluator(this::constantSymbol, Map.of());
+        inference = new UnitInference(declarations, coord == null ? null : coord.name(), constants, diagnostics);
+        checkDeclarations();
+        for (Stmt s : program.statements()) statement(s);
+        List<CaseValues> cases = cases();
+        checkExpectCases();
+        Map<String, Symbol> symbols = symbols();
+        reportInferredUnits(symbols);
+        Map<Expr, Dimension> dims = new IdentityHashMap<>();
+        inference.forms.forEach((e, f) -> dims.put(e, inference.solver.known(f).orElse(Dimension.NONE)));
+        Optional<Symbol.Coordinate> coordinate = coord == null ? Optional.empty()
+                : Optional.of((Symbol.Coordinate) symbols.get(coord.name()));
+        String title = program.all(Stmt.Title.class).stream().map(Stmt.Title::text).findFirst().orElse(program.source().path());
+        return new Model(program, title, Collections.unmodifiableMap(symbols), coordinate,
+                program.all(Stmt.Relation.class), program.all(Stmt.Boundary.class), program.all(Stmt.Step.class),
+                program.all(Stmt.Claim.class), program.all(Stmt.Scaling.class), cases, program.all(Stmt.Expect.class),
+                program.all(Stmt.Show.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
+    }
+
+    // ---- declarations ----------------------------------------------------------------------
+
+    private void declare() {
+        for (Stmt s : program.statements()) {
+            String name;
+            Span span;
+            if (s instanceof Stmt.Param p) {
+                name = p.name();
+                span = p.nameSpan();
+            } else if (s instanceof Stmt.Coord c) {
+                name = c.name();
+                span = c.nameSpan();
+                if (coord != null) {
+                    diagnostics.error(span, "only one coordinate is supported; '" + coord.name() + "' was declared at line "
+                            + coord.span().line());
+                    continue;
+                }
+                coord = c;
+            } else if (s instanceof Stmt.Let l) {
+                name = l.name();
+                span = l.nameSpan();
+            } else if (s instanceof Stmt.Unknown u) {
+                name = u.name();
+                span = u.nameSpan();
+            } else {
+                continue;
+            }
+            Stmt previous = declarations.get(name);
+            if (previous != null) {
+                diagnostics.error(span, "'" + name + "' is declared twice; the first declaration is at line " + previous.span().line());
+                continue;
+            }
+            if (Constants.lookup(name).isPresent()) {
+                diagnostics.warning(span, "'" + name + "' shadows the built-in constant " + name + " ("
+                        + Constants.lookup(name).get().description() + ")", "in this file '" + name + "' means your declaration");
+            }
+            declarations.put(name, s);
+        }
+    }
+
+    private void checkLabels() {
+        Map<String, Span> seen = new HashMap<>();
+        Map<String, Span> caseNames = new HashMap<>();
+        for (Stmt s : program.statements()) {
+            Stmt.Label label = labelOf(s);
+            if (!label.present()) continue;
+            Map<String, Span> space = s instanceof Stmt.Case ? caseNames : seen;
+            Span first = space.putIfAbsent(label.name(), label.span());
+            if (first != null) {
+                diagnostics.error(label.span(), "the label '" + label.name() + "' is used twice; the first use is at line " + first.line());
+            }
+        }
+    }
+
+    /** The label of a statement that can carry one, else {@link Stmt.Label#NONE}. */
+    public static Stmt.Label labelOf(Stmt s) {
+        if (s instanceof Stmt.Relation r) return r.label();
+        if (s instanceof Stmt.Boundary b) return b.label();
+        if (s instanceof Stmt.Step st) return st.label();
+        if (s instanceof Stmt.Claim c) return c.label();
+        if (s instanceof Stmt.Scaling sc) return sc.label();
+        if (s instanceof Stmt.Expect e) return e.label();
+        if (s instanceof Stmt.Case c) return c.label();
+        return Stmt.Label.NONE;
+    }
+
+    private void checkDefinitionCycles() {
+        Map<String, Integer> state = new HashMap<>();
+        for (Stmt s : declarations.values()) {
+            if (s instanceof Stmt.Let l) visit(l, state, new ArrayList<>());
+        }
+    }
+
+    private void visit(Stmt.Let l, Map<String, Integer> state, List<String> path) {
+        Integer st = state.get(l.name());
+        if (st != null && st == 2) return;
+        if (st != null && st == 1) {
+            List<String> cycle = new ArrayList<>(path.subList(path.indexOf(l.name()), path.size()));
+            cycle.add(l.name());
+            diagnostics.error(l.nameSpan(), "definitions refer to each other in a cycle: " + String.join(" -> ", cycle));
+            return;
+        }
+        state.put(l.name(), 1);
+        path.add(l.name());
+        for (String ref : References.names(l.body())) {
+            if (l.params().contains(ref)) continue;
+            if (declarations.get(ref) instanceof Stmt.Let next) visit(next, state, path);
+        }
+        path.remove(path.size() - 1);
+        state.put(l.name(), 2);
+    }
+
+    /** Looks a name up for constant evaluation, evaluating a fixed parameter on first use. */
+    private Symbol constantSymbol(String name) {
+        Stmt decl = declarations.get(name);
+        if (decl instanceof Stmt.Param p && p.value() != null) return fixedParam(p);
+        if (decl instanceof Stmt.Let l) {
+            return new Symbol.Definition(l.name(), l.nameSpan(), Dimension.NONE, l.params(), List.of(), l.body());
+        }
+        if (decl != null) return new Symbol.FreeParam(name, decl.span(), Dimension.NONE, null);
+        return Constants.lookup(name).<Symbol>map(Symbol.Builtin::new).orElse(null);
+    }
+
+    private Symbol.FixedParam fixedParam(Stmt.Param p) {
+        Symbol.FixedParam done = fixed.get(p.name());
+        if (done != null) return done;
+        double value = Double.NaN;
+        if (evaluating.add(p.name())) {
+            try {
+                value = new ConstantEvaluator(this::constantSymbol, Map.of()).evaluate(p.value());
+            } catch (ConstantEvaluator.NotConstant e) {
+                diagnostics.error(e.where.span(), "the value of parameter '" + p.name() + "' must be a fixed number: " + e.getMessage(),
+                        "a fixed parameter may use numbers, units, built-in constants and other fixed parameters");
+            } finally {
+                evaluating.remove(p.name());
+            }
+        } else {
+            diagnostics.error(p.nameSpan(), "the value of parameter '" + p.name() + "' depends on itself");
+        }
+        Dimension d = inference == null ? Dimension.NONE
+                : inference.solver.known(inference.symbolForm(p.name())).orElse(Dimension.NONE);
+        Symbol.FixedParam f = new Symbol.FixedParam(p.name(), p.nameSpan(), d, value, p.value());
+        if (inference != null) fixed.put(p.name(), f);
+        return f;
+    }
+
+    private void checkDeclarations() {
+        for (Stmt s : declarations.values()) {
+            if (s instanceof Stmt.Param p && p.value() != null) {
+                DimForm value = inference.infer(p.value());
+                if (p.unit() != null) {
+                    inference.mismatch(value, inference.unit(p.unit().text(), p.unit().span()), p.value().span(),
+                            "the value of '" + p.name() + "' does not have its declared unit [" + p.unit().text() + "]", p.value(), null);
+                }
+            } else if (s instanceof Stmt.Coord c) {
+                DimForm cf = inference.symbolForm(c.name());
+                inference.mismatch(inference.infer(c.from()), cf, c.from().span(),
+                        "the start of the interval does not have the unit of '" + c.name() + "'", c.from(), null);
+                inference.mismatch(inference.infer(c.to()), cf, c.to().span(),
+                        "the end of the interval does not have the unit of '" + c.name() + "'", c.to(), null);
+            } else if (s instanceof Stmt.Unknown u && u.isProfile()) {
+                if (coord == null) {
+                    diagnostics.error(u.span(), "the profile '" + u.name() + "' needs a coordinate: declare one, e.g. coord "
+                            + u.args().get(0) + " [m] from 0 to R");
+                } else if (u.args().size() != 1 || !u.args().get(0).equals(coord.name())) {
+                    diagnostics.error(u.span(), "a profile is a function of the coordinate '" + coord.name() + "': write "
+                            + u.name() + "(" + coord.name() + ")");
+                }
+            } else if (s instanceof Stmt.Let l) {
+                inference.symbolForm(l.name());
+            }
+        }
+    }
+
+    // ---- statements --------------------------------------------------------------------------
+
+    private void statement(Stmt s) {
+        if (s instanceof Stmt.Relation r) {
+            sides("relation", r.label(), r.span(), r.equation());
+        } else if (s instanceof Stmt.Boundary b) {
+            sides("boundary", b.label(), b.span(), b.equation());
+        } else if (s instanceof Stmt.Step st) {
+            sides("step", st.label(), st.span(), st.equation());
+        } else if (s instanceof Stmt.Claim c) {
+            sides("claim", c.label(), c.span(), c.equation());
+        } else if (s instanceof Stmt.Scaling sc) {
+            inference.infer(sc.lhs());
+            inference.infer(sc.rhs());
+        } else if (s instanceof Stmt.Expect e) {
+            expect(e);
+        } else if (s instanceof Stmt.Show sh) {
+            DimForm f = inference.infer(sh.expr());
+            if (sh.unit() != null) {
+                inference.mismatch(f, inference.unit(sh.unit().text(), sh.unit().span()), sh.unit().span(),
+                        "cannot show " + ExprPrinter.print(sh.expr()) + " in [" + sh.unit().text() + "]: the units differ", sh.expr(), null);
+            }
+        }
+    }
+
+    private void sides(String what, Stmt.Label label, Span span, Stmt.Equation eq) {
+        int errorsBefore = diagnostics.errorCount();
+        DimForm l = inference.infer(eq.lhs());
+        DimForm r = inference.infer(eq.rhs());
+        String name = label.present() ? what + " '" + label.name() + "'" : "the " + what + " on line " + span.line();
+        Expr blamed = isPlainUnknown(eq.rhs()) && !isPlainUnknown(eq.lhs()) ? eq.lhs() : eq.rhs();
+        boolean differ = inference.mismatch(l, r, blamed.span(), "the two sides of " + name + " have different units",
+                eq.lhs(), eq.rhs());
+        Status status = diagnostics.errorCount() > errorsBefore ? Status.FAILS : Status.HOLDS;
+        String message = status == Status.HOLDS
+                ? "both sides in " + inference.solver.describe(l)
+                : differ ? "left side " + inference.solver.describe(l) + ", right side " + inference.solver.describe(r)
+                : "a unit error inside the " + what;
+        unitChecks.add(Check.of("units", label.present() ? label.name() : what + "@" + span.line(), span, status, message)
+                .with("statement", what));
+    }
+
+    private static boolean isPlainUnknown(Expr e) {
+        return e instanceof Expr.Call c && c.args().size() == 1;
+    }
+
+    private void expect(Stmt.Expect e) {
+        DimForm l = inference.infer(e.lhs());
+        DimForm r = inference.infer(e.expected());
+        boolean differ = inference.mismatch(l, r, e.expected().span(), "the expected value of '" + labelOf(e.label(), e.span())
+                + "' does not have the unit of " + ExprPrinter.print(e.lhs()), e.lhs(), e.expected());
+        if (!e.tolerance().isRelative()) {
+            differ |= inference.mismatch(inference.infer(e.tolerance().absolute()), l, e.tolerance().span(),
+                    "the tolerance does not have the unit of " + ExprPrinter.print(e.lhs()), e.tolerance().absolute(), null);
+        } else if (!(e.tolerance().relative() >= 0)) {
+            diagnostics.error(e.tolerance().span(), "a tolerance must not be negative");
+        }
+        unitChecks.add(Check.of("units", labelOf(e.label(), e.span()), e.span(), differ ? Status.FAILS : Status.HOLDS,
+                differ ? "the expected value has another unit" : "both sides in " + inference.solver.describe(l)).with("statement", "expect"));
+    }
+
+    private static String labelOf(Stmt.Label l, Span span) {
+        return l.present() ? l.name() : "line " + span.line();
+    }
+
+    // ---- cases -------------------------------------------------------------------------------
+
+    private List<CaseValues> cases() {
+        List<String> free = declarations.values().stream()
+                .filter(s -> s instanceof Stmt.Param p && p.value() == null).map(s -> ((Stmt.Param) s).name()).toList();
+        List<CaseValues> out = new ArrayList<>();
+        ConstantEvaluator evaluator = new ConstantEvaluator(this::constantSymbol, Map.of());
+        for (Stmt.Case c : program.all(Stmt.Case.class)) {
+            Map<String, Double> values = new LinkedHashMap<>();
+            Map<String, Double> sigmas = new LinkedHashMap<>();
+            boolean ok = true;
+            for (Stmt.Assignment a : c.assignments()) {
+                Stmt decl = declarations.get(a.name());
+                if (!(decl instanceof Stmt.Param p) || p.value() != null) {
+                    String why = decl instanceof Stmt.Param ? "is fixed by its declaration" : decl == null ? "is not declared" : "is not a parameter";
+                    diagnostics.error(a.nameSpan(), "case '" + c.label().name() + "' sets '" + a.name() + "', which " + why,
+                            "a case gives values to free parameters (" + String.join(", ", free) + ")");
+                    ok = false;
+                    continue;
+                }
+                if (values.containsKey(a.name())) {
+                    diagnostics.error(a.nameSpan(), "case '" + c.label().name() + "' sets '" + a.name() + "' twice");
+                    ok = false;
+                    continue;
+                }
+                DimForm want = inference.symbolForm(a.name());
+                ok &= !inference.mismatch(inference.infer(a.value()), want, a.value().span(),
+                        "the value of '" + a.name() + "' does not have its unit", a.value(), null);
+                ok &= value(evaluator, a.value(), a.name(), values);
+                if (a.uncertainty() != null) {
+                    ok &= !inference.mismatch(inference.infer(a.uncertainty()), want, a.uncertainty().span(),
+                            "the uncertainty of '" + a.name() + "' does not have its unit", a.uncertainty(), null);
+                    ok &= value(evaluator, a.uncertainty(), a.name(), sigmas);
+                }
+            }
+            List<String> missing = free.stream().filter(n -> !values.containsKey(n)).toList();
+            if (!missing.isEmpty() && ok) {
+                diagnostics.error(c.label().span(), "case '" + c.label().name() + "' gives no value for " + String.join(", ", missing));
+                ok = false;
+            }
+            if (ok) out.add(new CaseValues(c.label().name(), c.span(), values, sigmas));
+        }
+        return out;
+    }
+
+    private boolean value(ConstantEvaluator evaluator, Expr e, String name, Map<String, Double> into) {
+        try {
+            into.put(name, evaluator.evaluate(e));
+            return true;
+        } catch (ConstantEvaluator.NotConstant ex) {
+            diagnostics.error(ex.where.span(), "a case value must be a fixed number: " + ex.getMessage());
+            return false;
+        }
+    }
+
+    private void checkExpectCases() {
+        boolean hasFree = declarations.values().stream().anyMatch(s -> s instanceof Stmt.Param p && p.value() == null);
+        Set<String> caseNames = new HashSet<>();
+        program.all(Stmt.Case.class).forEach(c -> caseNames.add(c.label().name()));
+        for (Stmt.Expect e : program.all(Stmt.Expect.class)) {
+            if (e.caseName() == null && hasFree) {
+                diagnostics.error(e.lhs().span(), "this expectation needs 'at CASE': the file has free parameters",
+                        "e.g. expect " + labelOf(e.label(), e.span()) + ": " + ExprPrinter.print(e.lhs()) + " at "
+                                + (caseNames.isEmpty() ? "sun" : caseNames.iterator().next()) + " = ...");
+            } else if (e.caseName() != null && !caseNames.contains(e.caseName())) {
+                diagnostics.error(e.caseSpan(), "there is no case named '" + e.caseName() + "'"
+                        + dev.plumb.lang.Names.closest(e.caseName(), caseNames).map(s -> "; did you mean '" + s + "'?").orElse(""));
+            }
+        }
+    }
+
+    // ---- symbols -----------------------------------------------------------------------------
+
+    private Map<String, Symbol> symbols() {
+        Map<String, Symbol> out = new LinkedHashMap<>();
+        for (Stmt s : declarations.values()) {
+            Symbol sym = null;
+            if (s instanceof Stmt.Param p) {
+                sym = p.value() != null ? fixedParam(p) : new Symbol.FreeParam(p.name(), p.nameSpan(), dim(p.name()), p.assumption());
+            } else if (s instanceof Stmt.Coord c) {
+                sym = new Symbol.Coordinate(c.name(), c.nameSpan(), dim(c.name()), c.from(), c.to());
+            } else if (s instanceof Stmt.Let l) {
+                sym = new Symbol.Definition(l.name(), l.nameSpan(), dim(l.name()), l.params(),
+                        inference.letParams(l).stream().map(f -> inference.solver.known(f).orElse(Dimension.NONE)).toList(), l.body());
+            } else if (s instanceof Stmt.Unknown u && u.isProfile()) {
+                sym = new Symbol.Profile(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null);
+            } else if (s instanceof Stmt.Unknown u) {
+                sym = new Symbol.UnknownConstant(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null,
+                        coord != null && (isName(coord.to(), u.name()) || isName(coord.from(), u.name())));
+            }
+            if (sym != null) out.put(sym.name(), sym);
+        }
+        Set<String> used = new HashSet<>();
+        for (Stmt s : program.statements()) used.addAll(References.names(s));
+        for (String name : Constants.all().keySet()) {
+            if (used.contains(name) && !out.containsKey(name)) out.put(name, new Symbol.Builtin(Constants.lookup(name).get()));
+        }
+        return out;
+    }
+
+    private static boolean isName(Expr e, String name) {
+        return e instanceof Expr.Name n && n.id().equals(name);
+    }
+
+    private Dimension dim(String name) {
+        return inference.solver.known(inference.symbolForm(name)).orElse(Dimension.NONE);
+    }
+
+    private void reportInferredUnits(Map<String, Symbol> symbols) {
+        for (Stmt s : declarations.values()) {
+            if (!(s instanceof Stmt.Unknown u) || u.unit() != null) continue;
+            Optional<Dimension> d = inference.solver.known(inference.symbolForm(u.name()));
+            if (d.isPresent()) {
+                diagnostics.note(u.nameSpan(), "the unit of '" + u.name() + "' is inferred as " + UnitCatalog.siName(d.get())
+                        + (UnitCatalog.siName(d.get()).equals(d.get().toString()) ? "" : " = " + d.get()));
+            } else {
+                diagnostics.warning(u.nameSpan(), "the unit of '" + u.name() + "' cannot be inferred from the relations",
+                        "give it explicitly, e.g. unknown " + u.name() + " [Pa]");
+            }
+        }
+    }
+}

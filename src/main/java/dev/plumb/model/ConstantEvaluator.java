@@ -1,0 +1,89 @@
+package dev.plumb.model;
+
+import dev.plumb.lang.Expr;
+import dev.plumb.units.UnitException;
+import dev.plumb.units.UnitParser;
+import java.util.Map;
+import java.util.function.Function;
+
+/**
+ * Evaluates an expression that involves no unknown and no coordinate (a fixed parameter, a case
+ * value, a tolerance) to a double in SI base units.
+ */
+public final class ConstantEvaluator {
+
+    /** Raised when the expression needs something that is not a constant. */
+    public static final class NotConstant extends Exception {
+        public final Expr where;
+
+        NotConstant(Expr where, String message) {
+            super(message, null, false, false);
+            this.where = where;
+        }
+    }
+
+    private final Function<String, Symbol> lookup;
+    private final Map<String, Double> bindings;
+
+    /**
+     * @param lookup   resolves a name to its symbol (null when unknown)
+     * @param bindings values (SI) that take precedence: free parameters of a case, let arguments
+     */
+    public ConstantEvaluator(Function<String, Symbol> lookup, Map<String, Double> bindings) {
+        this.lookup = lookup;
+        this.bindings = bindings;
+    }
+
+    public double evaluate(Expr e) throws NotConstant {
+        if (e instanceof Expr.Num n) return n.value();
+        if (e instanceof Expr.Quantity q) {
+            try {
+                return q.value() * UnitParser.parse(q.unit()).factor();
+            } catch (UnitException ex) {
+                throw new NotConstant(e, ex.getMessage());
+            }
+        }
+        if (e instanceof Expr.Name n) return name(n);
+        if (e instanceof Expr.Neg n) return -evaluate(n.operand());
+        if (e instanceof Expr.Binary b) {
+            double l = evaluate(b.left());
+            double r = evaluate(b.right());
+            return switch (b.op()) {
+                case ADD -> l + r;
+                case SUB -> l - r;
+                case MUL -> l * r;
+                case DIV -> l / r;
+                case POW -> Math.pow(l, r);
+            };
+        }
+        if (e instanceof Expr.If i) {
+            return i.condition().op().test(evaluate(i.condition().left()), evaluate(i.condition().right()))
+                    ? evaluate(i.then()) : evaluate(i.otherwise());
+        }
+        return call((Expr.Call) e);
+    }
+
+    private double name(Expr.Name n) throws NotConstant {
+        Double bound = bindings.get(n.id());
+        if (bound != null) return bound;
+        Symbol s = lookup.apply(n.id());
+        if (s instanceof Symbol.FixedParam p) return p.value();
+        if (s instanceof Symbol.Builtin b) return b.constant().value();
+        if (s instanceof Symbol.Definition d && d.params().isEmpty()) return evaluate(d.body());
+        if (s == null) throw new NotConstant(n, "'" + n.id() + "' is not defined");
+        throw new NotConstant(n, "'" + n.id() + "' has no fixed value here");
+    }
+
+    private double call(Expr.Call c) throws NotConstant {
+        if (c.order() == 0 && BuiltinFunction.lookup(c.callee()).isPresent() && c.args().size() == 1) {
+            return BuiltinFunction.lookup(c.callee()).get().apply(evaluate(c.args().get(0)));
+        }
+        Symbol s = lookup.apply(c.callee());
+        if (s instanceof Symbol.Definition d && c.order() == 0 && d.params().size() == c.args().size()) {
+            Map<String, Double> inner = new java.util.HashMap<>(bindings);
+            for (int i = 0; i < d.params().size(); i++) inner.put(d.params().get(i), evaluate(c.args().get(i)));
+            return new ConstantEvaluator(lookup, inner).evaluate(d.body());
+        }
+        throw new NotConstant(c, "'" + c.callee() + "(...)' has no fixed value here");
+    }
+}
