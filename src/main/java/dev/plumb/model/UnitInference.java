@@ -55,7 +55,7 @@ final class UnitInference {
             f = p.unit() != null ? unit(p.unit().text(), p.unit().span())
                     : p.value() != null ? inScope(Map.of(), p.value()) : DimForm.NONE;
         } else if (decl instanceof Stmt.Coord c) {
-            f = c.unit() != null ? unit(c.unit().text(), c.unit().span()) : solver.fresh(c.name());
+            f = c.unit() != null ? unit(c.unit().text(), c.unit().span()) : DimForm.NONE;
         } else if (decl instanceof Stmt.Unknown u) {
             f = u.unit() != null ? unit(u.unit().text(), u.unit().span()) : solver.fresh(u.name());
         } else if (decl instanceof Stmt.Let l) {
