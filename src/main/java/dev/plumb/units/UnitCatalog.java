@@ -26,25 +26,23 @@ public final class UnitCatalog {
   /** All prefix spellings, longest first so that "da" is tried before "d". */
   static final List<Prefix> PREFIXES = prefixes();
 
-  private static final Map<String, Unit> PREFIXED = new ConcurrentHashMap<>();
+  /** Units already looked up: asking Indriya for a converter each time would be wasted work. */
+  private static final Map<String, Unit> FOUND = new ConcurrentHashMap<>();
 
   private UnitCatalog() {}
 
   /** The unit written {@code symbol} ("km", "Pa", "Msun", "dyn", "GPa", "mmHg" ...), if known. */
   public static Optional<Unit> lookup(String symbol) {
-    NamedUnits.NamedUnit named = NamedUnits.ALL.get(symbol);
-    if (named != null) {
-      return Optional.of(named.unit());
-    }
-    Unit cached = PREFIXED.get(symbol);
+    Unit cached = FOUND.get(symbol);
     if (cached != null) {
       return Optional.of(cached);
     }
-    List<Unit> readings = prefixedReadings(symbol);
+    NamedUnits.NamedUnit named = NamedUnits.ALL.get(symbol);
+    List<Unit> readings = named != null ? List.of(named.unit()) : prefixedReadings(symbol);
     if (readings.isEmpty()) {
       return Optional.empty();
     }
-    PREFIXED.put(symbol, readings.get(0));
+    FOUND.put(symbol, readings.get(0));
     return Optional.of(readings.get(0));
   }
 

@@ -103,6 +103,15 @@ class UnitParserTest {
   }
 
   @Test
+  void convertsToAndFromSi() throws UnitException {
+    Unit gpa = UnitParser.parse("GPa");
+    assertEquals(134.47, gpa.fromSI(1.3447e11), 1e-9);
+    assertEquals(2.5e9, gpa.toSI(2.5), 0.0);
+    assertTrue(gpa.isCompatible(UnitParser.parse("dyn/cm^2")));
+    assertTrue(!gpa.isCompatible(UnitParser.parse("J")));
+  }
+
+  @Test
   void incompleteExponentPointsAtTheEnd() {
     UnitException e = assertThrows(UnitException.class, () -> UnitParser.parse("kg m^"));
     assertEquals(5, e.offset());
