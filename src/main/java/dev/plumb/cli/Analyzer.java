@@ -18,6 +18,9 @@ import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import dev.plumb.scaling.ScalingChecker;
 
 /** Runs the stages in order on one file: text, syntax tree, checked model, verdicts, report data. */
 public final class Analyzer {
@@ -55,8 +58,9 @@ public final class Analyzer {
         Model model = Checker.check(program, diagnostics);
         List<Check> checks = new ArrayList<>(model.unitChecks());
         List<String> notes = new ArrayList<>();
-        if (!model.hasErrors() || !diagnostics.hasInputErrors()) {
+        if (!diagnostics.hasInputErrors()) {
             pending(model, checks);
+            checks.addAll(new ScalingChecker(model, Map.of(), e -> Optional.empty()).checkAll());
         }
         return new Analysis(source, model, model.diagnostics(), checks, List.of(), List.of(), notes);
     }
@@ -65,7 +69,6 @@ public final class Analyzer {
     private static void pending(Model model, List<Check> checks) {
         for (Stmt.Step s : model.steps()) checks.add(notEvaluated("step", s.label(), s.span()));
         for (Stmt.Claim c : model.claims()) checks.add(notEvaluated("claim", c.label(), c.span()));
-        for (Stmt.Scaling s : model.scalings()) checks.add(notEvaluated("scaling", s.label(), s.span()));
         for (Stmt.Expect e : model.expects()) checks.add(notEvaluated("expect", e.label(), e.span()));
     }
 
