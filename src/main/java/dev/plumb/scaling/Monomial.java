@@ -15,9 +15,19 @@ import java.util.function.Function;
  */
 public final class Monomial {
     private final Function<String, Symbol> lookup;
+    private final boolean profileAtoms;
 
     public Monomial(Function<String, Symbol> lookup) {
+        this(lookup, false);
+    }
+
+    /**
+     * @param profileAtoms treat a profile value such as {@code P(z)} as an atom named after the
+     *                     profile, and expand calls of definitions at the coordinate
+     */
+    public Monomial(Function<String, Symbol> lookup, boolean profileAtoms) {
         this.lookup = lookup;
+        this.profileAtoms = profileAtoms;
     }
 
     /** The exponent of every name in {@code e}, or empty when {@code e} is not a monomial. */
@@ -56,10 +66,28 @@ public final class Monomial {
                     return isConstant(b);
             }
         }
+        if (profileAtoms && e instanceof Expr.Call c && c.order() == 0) {
+            Symbol s = lookup.apply(c.callee());
+            if (s instanceof Symbol.Profile) {
+                out.merge(c.callee(), power, Rational::add);
+                out.values().removeIf(Rational::isZero);
+                return true;
+            }
+            if (s instanceof Symbol.Definition d && d.params().size() == c.args().size() && sameNames(d.params(), c.args())) {
+                return collect(d.body(), power, out);
+            }
+        }
         if (e instanceof Expr.Call c && c.callee().equals("sqrt") && c.args().size() == 1 && lookup.apply("sqrt") == null) {
             return collect(c.args().get(0), power.mul(Rational.of(1, 2)), out);
         }
         return isConstant(e);
+    }
+
+    private static boolean sameNames(java.util.List<String> params, java.util.List<Expr> args) {
+        for (int i = 0; i < params.size(); i++) {
+            if (!(args.get(i) instanceof Expr.Name n) || !n.id().equals(params.get(i))) return false;
+        }
+        return true;
     }
 
     private boolean isConstant(Expr e) {

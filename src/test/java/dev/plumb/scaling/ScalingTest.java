@@ -131,4 +131,31 @@ class ScalingTest {
         assertEquals(Status.FAILS, checks.get(1).status());
         assertTrue(checks.get(1).message().contains("exponent of mu is -1, claimed 0"), checks.get(1).message());
     }
+
+    @Test
+    void isothermalRelationGivesTheScaleHeightWithItsMolecularWeight() {
+        // P'(z) = -mu m_u g P / (k_B T) has the e-folding length H = k_B T / (mu m_u g).
+        Model m = model("""
+                param T [K] > 0
+                param mu > 0
+                param g [m/s^2] > 0
+                param P0 [Pa] > 0
+                coord z [m] from 0 to 50 [km]
+                unknown P(z) [Pa]
+                let H = k_B*T/(mu*m_u*g)
+                relation balance: P'(z) = -mu*m_u*g*P(z)/(k_B*T)
+                """);
+        List<ScaleLength> scales = ScaleLength.find(m);
+        assertEquals(1, scales.size());
+        Map<String, Rational> e = scales.get(0).scale();
+        assertEquals(Map.of("k_B", Rational.ONE, "T", Rational.ONE, "mu", Rational.of(-1), "m_u", Rational.of(-1),
+                "g", Rational.of(-1)), e);
+        assertEquals(Optional.of("H"), scales.get(0).matches());
+    }
+
+    @Test
+    void aSphereHasNoConstantScaleLength() throws Exception {
+        Model m = model(Files.readString(Path.of("derivations/uniform-sphere.plumb")));
+        assertTrue(ScaleLength.find(m).isEmpty());
+    }
 }
