@@ -20,6 +20,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import dev.plumb.scaling.ScaleLength;
 import dev.plumb.scaling.ScalingChecker;
 
 /** Runs the stages in order on one file: text, syntax tree, checked model, verdicts, report data. */
@@ -62,7 +63,9 @@ public final class Analyzer {
             pending(model, checks);
             checks.addAll(new ScalingChecker(model, Map.of(), e -> Optional.empty()).checkAll());
         }
-        return new Analysis(source, model, model.diagnostics(), checks, List.of(), List.of(), notes);
+        List<String> scales = diagnostics.hasInputErrors() ? List.of()
+                : ScaleLength.find(model).stream().map(ScaleLength::describe).toList();
+        return new Analysis(source, model, model.diagnostics(), checks, List.of(), List.of(), scales, notes);
     }
 
     /** Checks that later stages decide, reported plainly as not evaluated rather than as holding. */
@@ -81,7 +84,7 @@ public final class Analyzer {
         SourceFile source = new SourceFile(path.toString(), "");
         Diagnostics d = new Diagnostics();
         d.error(Span.NONE, why);
-        return new Analysis(source, null, d.sorted(), List.of(), List.of(), List.of(), List.of());
+        return new Analysis(source, null, d.sorted(), List.of(), List.of(), List.of(), List.of(), List.of());
     }
 
     private static final class Parser {

@@ -71,6 +71,16 @@ public final class JsonReport {
                 q.put("numeric", r.numeric());
                 q.put("rel_diff", r.relDiff());
                 q.put("error_estimate", r.errorEstimate());
+                if (!r.sensitivities().isEmpty()) q.put("sensitivities", r.sensitivities());
+                if (r.uncertainty() != null) {
+                    Map<String, Object> u = new LinkedHashMap<>();
+                    u.put("first_order", r.uncertainty().firstOrder());
+                    u.put("monte_carlo", r.uncertainty().monteCarlo());
+                    u.put("monte_carlo_sampling_error", r.uncertainty().samplingError());
+                    u.put("samples", r.uncertainty().samples());
+                    u.put("seed", r.uncertainty().seed());
+                    q.put("uncertainty", u);
+                }
                 if (r.shownUnit() != null) {
                     q.put("shown_unit", r.shownUnit());
                     q.put("shown_value", r.numeric() == null ? null : r.numeric() / r.shownFactor());
@@ -81,6 +91,7 @@ public final class JsonReport {
             cases.add(m);
         }
         root.put("cases", cases);
+        if (!a.scales().isEmpty()) root.put("scales", a.scales());
         if (!a.notes().isEmpty()) root.put("notes", a.notes());
         return root;
     }

@@ -52,6 +52,7 @@ public final class TextReport {
                         num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), small(r.errorEstimate()), unit));
             }
         }
+        for (String scale : a.scales()) out.append("  ").append(scale).append('\n');
         for (String note : a.notes()) out.append("  note: ").append(note).append('\n');
         out.append('\n').append(summary(a, strict)).append('\n');
         return out.toString();

@@ -1,0 +1,121 @@
+package dev.plumb.cli;
+
+import dev.plumb.report.Analysis;
+import dev.plumb.report.DerivationDocument;
+import dev.plumb.report.DiagnosticPrinter;
+import dev.plumb.report.HtmlMarkup;
+import dev.plumb.report.Json;
+import dev.plumb.report.JsonReport;
+import dev.plumb.report.LatexMarkup;
+import dev.plumb.report.MarkdownMarkup;
+import dev.plumb.report.Markup;
+import dev.plumb.report.Style;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code plumb report FILE --format md|tex|html|json --out DIR}: the derivation document. */
+@Command(name = "report", mixinStandardHelpOptions = true, versionProvider = Version.class,
+        description = {"Write the derivation document: declarations, relations, every check with its verdict,",
+                "closed forms with their trail, cases closed-form beside numeric, plots, and sources.",
+                "Nothing is written when the input cannot be understood; existing files are replaced only when complete."})
+public final class ReportCommand implements Callable<Integer> {
+
+    enum Format { md, tex, html, json }
+
+    @Parameters(index = "0", paramLabel = "FILE", description = "the plumb file")
+    Path file;
+
+    @Option(names = "--format", split = ",", defaultValue = "md",
+            description = "one or more of ${COMPLETION-CANDIDATES}, comma-separated (default: ${DEFAULT-VALUE})")
+    List<Format> formats;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "report", description = "output directory (default: ${DEFAULT-VALUE})")
+    Path out;
+
+    @Option(names = "--symbolic-timeout", paramLabel = "SECONDS", defaultValue = "5",
+            description = "time limit for each symbolic computation (default: ${DEFAULT-VALUE} s)")
+    double symbolicTimeout;
+
+    @Option(names = "--strict", description = "an undecided check counts as failing in the exit status")
+    boolean strict;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        PrintWriter stdout = spec.commandLine().getOut();
+        Analysis a = new Analyzer(new Analyzer.Options(symbolicTimeout)).analyze(file);
+        DiagnosticPrinter printer = new DiagnosticPrinter(Style.detect());
+        a.diagnostics().forEach(d -> err.print(printer.print(a.source(), d)));
+        err.flush();
+        if (a.hasInputErrors() || a.model() == null) {
+            err.println("plumb: no report written: " + file + " could not be understood");
+            return 2;
+        }
+        String base = baseName(file);
+        Map<String, byte[]> files = new LinkedHashMap<>();
+        try {
+            for (Format f : formats) {
+                if (f == Format.json) {
+                    files.put(base + ".json", Json.write(JsonReport.toMap(a, strict)).getBytes(StandardCharsets.UTF_8));
+                    continue;
+                }
+                Markup markup = switch (f) {
+                    case md -> new MarkdownMarkup();
+                    case tex -> new LatexMarkup();
+                    default -> new HtmlMarkup();
+                };
+                DerivationDocument doc = new DerivationDocument(a, markup);
+                String text = doc.render();
+                files.putAll(doc.files());
+                files.put(base + "." + markup.extension(), text.getBytes(StandardCharsets.UTF_8));
+            }
+            write(out, files);
+        } catch (IOException e) {
+            err.println("plumb: cannot write the report to " + out + ": " + e.getMessage());
+            return 2;
+        }
+        files.keySet().forEach(name -> stdout.println("wrote " + out.resolve(name)));
+        return a.exitStatus(strict);
+    }
+
+    private static String baseName(Path p) {
+        String name = p.getFileName().toString();
+        int dot = name.lastIndexOf('.');
+        return dot > 0 ? name.substring(0, dot) : name;
+    }
+
+    /** Writes every file next to its target first, then moves it into place, so a failure leaves old files whole. */
+    private static void write(Path dir, Map<String, byte[]> files) throws IOException {
+        Files.createDirectories(dir);
+        for (Map.Entry<String, byte[]> f : files.entrySet()) {
+            Path target = dir.resolve(f.getKey());
+            Path tmp = Files.createTempFile(dir, ".plumb-", ".tmp");
+            try {
+                Files.write(tmp, f.getValue());
+                try {
+                    Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+                } catch (AtomicMoveNotSupportedException e) {
+                    Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
+                }
+            } finally {
+                Files.deleteIfExists(tmp);
+            }
+        }
+    }
+}
