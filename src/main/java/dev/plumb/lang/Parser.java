@@ -463,7 +463,8 @@ public final class Parser {
     }
 
     private ParseError error(Token at, String message) {
-        diagnostics.error(at.span(), message);
+        // The lexer has already reported the bad character, unclosed unit or unclosed string.
+        if (!at.is(TokenType.ERROR)) diagnostics.error(at.span(), message);
         return new ParseError();
     }
 
