@@ -26,6 +26,8 @@ public final class Parser {
     private final List<Token> tokens;
     private final Diagnostics diagnostics;
     private int current;
+    /** Set while the value of a case assignment is parsed, where {@code +-} may follow it. */
+    private boolean uncertaintyAllowed;
 
     private static final class ParseError extends RuntimeException {
         ParseError() {
@@ -204,7 +206,13 @@ public final class Parser {
     private Stmt.Assignment assignment() {
         Token name = identifier("expected a parameter name and its value, e.g. M = 1 [Msun]");
         consume(TokenType.EQUALS, "expected '=' after '" + name.text() + "'");
-        Expr value = expression();
+        Expr value;
+        uncertaintyAllowed = true;
+        try {
+            value = expression();
+        } finally {
+            uncertaintyAllowed = false;
+        }
         Expr uncertainty = null;
         if (match(TokenType.PLUS_MINUS)) {
             uncertainty = expression();
@@ -307,7 +315,7 @@ public final class Parser {
             Expr right = term();
             left = new Expr.Binary(op.is(TokenType.PLUS) ? BinaryOp.ADD : BinaryOp.SUB, left, right, left.span().to(right.span()));
         }
-        if (check(TokenType.PLUS_MINUS)) {
+        if (check(TokenType.PLUS_MINUS) && !uncertaintyAllowed) {
             throw error(peek(), "'+-' gives an uncertainty and is only allowed in a case, e.g. case a: M = 1.0 +- 0.02 [Msun]");
         }
         return left;
@@ -463,7 +471,8 @@ public final class Parser {
     }
 
     private ParseError error(Token at, String message) {
-        diagnostics.error(at.span(), message);
+        // The lexer has already reported the bad character, unclosed unit or unclosed string.
+        if (!at.is(TokenType.ERROR)) diagnostics.error(at.span(), message);
         return new ParseError();
     }
 

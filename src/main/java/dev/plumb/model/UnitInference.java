@@ -293,8 +293,8 @@ final class UnitInference {
         if (c != null && solver.known(coord).isPresent() && !solver.known(coord).get().isNone() && ratio.isKnown()) {
             Dimension r = ratio.known();
             Dimension cd = solver.known(coord).get();
-            if (r.equals(cd)) return "(left/right = " + r + ": is a 1/" + c + " missing on the right, or an extra " + c + " on the left?)";
-            if (r.equals(cd.inverse())) return "(right/left = " + cd + ": is a 1/" + c + " missing on the left, or an extra " + c + " on the right?)";
+            if (r.equals(cd)) return "(left/right = " + r + ": is a 1/" + c + " missing on the left, or an extra 1/" + c + " on the right?)";
+            if (r.equals(cd.inverse())) return "(right/left = " + cd + ": is a 1/" + c + " missing on the right, or an extra 1/" + c + " on the left?)";
         }
         return "(they differ by a factor of " + solver.describe(ratio) + ")";
     }
