@@ -73,7 +73,7 @@ class UnitCheckTest {
     void otherMismatchesNameTheFactor() {
         // Left P'(r) in Pa/m = kg m^-2 s^-2; right G m / r^2 in m s^-2: they differ by a density.
         Diagnostic d = Checking.of(SPHERE + "relation balance: P'(r) = -G*m(r)/r^2\n").onlyError("have different units");
-        assertTrue(details(d).contains("they differ by a factor of kg m^-3"), details(d));
+        assertTrue(details(d).contains("they differ by a factor of kg/m^3 (kg m^-3)"), details(d));
         assertTrue(details(d).contains("kg m^-2 s^-2"), details(d));
     }
 
