@@ -63,14 +63,15 @@ public final class ScalingChecker {
             }
         }
         names.addAll(References.names(quantity));
+        // Constants first, then fixed and free parameters: monomials then read as G*M^2*R^(-4).
         Map<String, Dimension> out = new LinkedHashMap<>();
-        for (Symbol.FreeParam p : model.freeParams()) out.put(p.name(), p.dimension());
-        for (Symbol s : model.symbols().values()) {
-            boolean dimensional = !s.dimension().isNone();
-            if ((s instanceof Symbol.FixedParam || s instanceof Symbol.Builtin) && dimensional && names.contains(s.name())) {
-                out.put(s.name(), s.dimension());
-            }
+        for (Symbol s : model.symbols(Symbol.Builtin.class)) {
+            if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
         }
+        for (Symbol s : model.symbols(Symbol.FixedParam.class)) {
+            if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
+        }
+        for (Symbol.FreeParam p : model.freeParams()) out.put(p.name(), p.dimension());
         return out;
     }
 
