@@ -16,6 +16,15 @@ public final class Diagnostics {
         add(Diagnostic.error(span, message, details));
     }
 
+    /** An error that records a failing check on well-formed input. */
+    public void failure(Span span, String message, String... details) {
+        add(Diagnostic.failure(span, message, details));
+    }
+
+    public boolean hasInputErrors() {
+        return items.stream().anyMatch(Diagnostic::isInputError);
+    }
+
     public void warning(Span span, String message, String... details) {
         add(Diagnostic.warning(span, message, details));
     }

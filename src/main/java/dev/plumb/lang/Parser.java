@@ -288,6 +288,18 @@ public final class Parser {
         return additive();
     }
 
+    /** Parses a lone expression that must fill the whole input (the {@code units} calculator); null after an error. */
+    public Expr expressionOnly() {
+        try {
+            Expr e = expression();
+            while (match(TokenType.NEWLINE)) { }
+            if (!check(TokenType.EOF)) throw error(peek(), "expected the end of the expression, found " + peek().describe());
+            return e;
+        } catch (ParseError ex) {
+            return null;
+        }
+    }
+
     private Expr additive() {
         Expr left = term();
         while (check(TokenType.PLUS) || check(TokenType.MINUS)) {

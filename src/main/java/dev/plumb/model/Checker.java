@@ -260,7 +260,7 @@ public final class Checker {
                 ? "both sides in " + inference.solver.describe(l)
                 : differ ? "left side " + inference.solver.describe(l) + ", right side " + inference.solver.describe(r)
                 : "a unit error inside the " + what;
-        unitChecks.add(Check.of("units", label.present() ? label.name() : what + "@" + span.line(), span, status, message)
+        unitChecks.add(Check.of("units", label.present() ? label.name() : "line " + span.line(), span, status, message)
                 .with("statement", what));
     }
 

@@ -73,6 +73,10 @@ final class DimensionSolver {
     /** Readable form, with unknown units named: "kg m^-3 [unit of K]^(3/4)". */
     String describe(DimForm f) {
         DimForm r = resolve(f);
+        if (r.vars().keySet().stream().allMatch(wildcard::get)) {
+            String named = dev.plumb.units.UnitCatalog.siName(r.known());
+            return named.equals(r.known().toString()) ? named : named + " (" + r.known() + ")";
+        }
         StringBuilder out = new StringBuilder();
         if (!r.known().isNone() || r.vars().isEmpty()) out.append(r.known());
         r.vars().forEach((v, p) -> {

@@ -191,7 +191,7 @@ final class UnitInference {
 
     private DimForm power(Expr.Binary b, DimForm base, DimForm exponent) {
         if (solver.unify(exponent, DimForm.NONE).isPresent()) {
-            diagnostics.error(b.right().span(), "an exponent must be dimensionless, found " + solver.describe(exponent));
+            diagnostics.failure(b.right().span(), "an exponent must be dimensionless, found " + solver.describe(exponent));
             return solver.wildcard();
         }
         Optional<Dimension> baseKnown = solver.known(base);
@@ -200,12 +200,12 @@ final class UnitInference {
             double p = constants.evaluate(b.right());
             Optional<Rational> q = Rational.approximate(p, 10_000);
             if (q.isEmpty()) {
-                diagnostics.error(b.right().span(), "the exponent " + p + " of a quantity with a unit is not a ratio of small integers");
+                diagnostics.failure(b.right().span(), "the exponent " + p + " of a quantity with a unit is not a ratio of small integers");
                 return solver.wildcard();
             }
             return base.pow(q.get());
         } catch (ConstantEvaluator.NotConstant ex) {
-            diagnostics.error(b.right().span(), "the exponent of a quantity with a unit must be a fixed number",
+            diagnostics.failure(b.right().span(), "the exponent of a quantity with a unit must be a fixed number",
                     "the base has unit " + solver.describe(base) + ", so its power must not depend on parameters, the coordinate or unknowns");
             return solver.wildcard();
         }
@@ -230,7 +230,7 @@ final class UnitInference {
                 case ABS -> a;
                 default -> {
                     if (solver.unify(a, DimForm.NONE).isPresent()) {
-                        diagnostics.error(c.args().get(0).span(), "the argument of '" + c.callee() + "' must be dimensionless, found "
+                        diagnostics.failure(c.args().get(0).span(), "the argument of '" + c.callee() + "' must be dimensionless, found "
                                 + solver.describe(a), "divide by a reference value of the same unit, e.g. log(P/P0)");
                     }
                     yield DimForm.NONE;
@@ -283,7 +283,7 @@ final class UnitInference {
         details.add(String.format("%-6s %-22s %s", right == null ? "needs" : "right", right == null ? "" : abbreviate(right),
                 solver.describe(b)));
         details.add(hint(ratio.get()));
-        diagnostics.error(span, message, details.toArray(String[]::new));
+        diagnostics.failure(span, message, details.toArray(String[]::new));
         return true;
     }
 

@@ -1,0 +1,92 @@
+package dev.plumb.cli;
+
+import dev.plumb.lang.Diagnostics;
+import dev.plumb.lang.Program;
+import dev.plumb.lang.SourceFile;
+import dev.plumb.lang.Span;
+import dev.plumb.lang.Stmt;
+import dev.plumb.model.Check;
+import dev.plumb.model.Checker;
+import dev.plumb.model.Model;
+import dev.plumb.model.Status;
+import dev.plumb.report.Analysis;
+import java.io.IOException;
+import java.nio.charset.MalformedInputException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import dev.plumb.scaling.ScalingChecker;
+
+/** Runs the stages in order on one file: text, syntax tree, checked model, verdicts, report data. */
+public final class Analyzer {
+
+    /** Options shared by every command that analyses files. */
+    public record Options(double symbolicTimeoutSeconds) {
+        public static Options defaults() {
+            return new Options(5.0);
+        }
+    }
+
+    private final Options options;
+
+    public Analyzer(Options options) {
+        this.options = options;
+    }
+
+    public Analysis analyze(Path path) {
+        String text;
+        try {
+            text = Files.readString(path, StandardCharsets.UTF_8);
+        } catch (NoSuchFileException e) {
+            return unreadable(path, "no such file");
+        } catch (MalformedInputException e) {
+            return unreadable(path, "the file is not UTF-8 text");
+        } catch (IOException e) {
+            return unreadable(path, "cannot read the file: " + e.getMessage());
+        }
+        return analyze(new SourceFile(path.toString(), text));
+    }
+
+    public Analysis analyze(SourceFile source) {
+        Diagnostics diagnostics = new Diagnostics();
+        Program program = Parser.parse(source, diagnostics);
+        Model model = Checker.check(program, diagnostics);
+        List<Check> checks = new ArrayList<>(model.unitChecks());
+        List<String> notes = new ArrayList<>();
+        if (!diagnostics.hasInputErrors()) {
+            pending(model, checks);
+            checks.addAll(new ScalingChecker(model, Map.of(), e -> Optional.empty()).checkAll());
+        }
+        return new Analysis(source, model, model.diagnostics(), checks, List.of(), List.of(), notes);
+    }
+
+    /** Checks that later stages decide, reported plainly as not evaluated rather than as holding. */
+    private static void pending(Model model, List<Check> checks) {
+        for (Stmt.Step s : model.steps()) checks.add(notEvaluated("step", s.label(), s.span()));
+        for (Stmt.Claim c : model.claims()) checks.add(notEvaluated("claim", c.label(), c.span()));
+        for (Stmt.Expect e : model.expects()) checks.add(notEvaluated("expect", e.label(), e.span()));
+    }
+
+    private static Check notEvaluated(String kind, Stmt.Label label, Span span) {
+        return Check.of(kind, label.present() ? label.name() : "line " + span.line(), span, Status.NOT_EVALUATED,
+                "not evaluated: this build checks units only");
+    }
+
+    private static Analysis unreadable(Path path, String why) {
+        SourceFile source = new SourceFile(path.toString(), "");
+        Diagnostics d = new Diagnostics();
+        d.error(Span.NONE, why);
+        return new Analysis(source, null, d.sorted(), List.of(), List.of(), List.of(), List.of());
+    }
+
+    private static final class Parser {
+        static Program parse(SourceFile s, Diagnostics d) {
+            return dev.plumb.lang.Parser.parse(s, d);
+        }
+    }
+}

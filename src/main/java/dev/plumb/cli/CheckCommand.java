@@ -1,0 +1,69 @@
+package dev.plumb.cli;
+
+import dev.plumb.report.Analysis;
+import dev.plumb.report.Json;
+import dev.plumb.report.JsonReport;
+import dev.plumb.report.Style;
+import dev.plumb.report.TextReport;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code plumb check FILE...}: every check on every file, with an exit status for scripts. */
+@Command(name = "check", mixinStandardHelpOptions = true, versionProvider = Version.class,
+        description = {"Parse, check units, derive, check steps, claims and scaling, solve every case and compare.",
+                "Exit status: 0 every check holds, 1 some check fails, 2 the input could not be understood."})
+public final class CheckCommand implements Callable<Integer> {
+
+    enum Format { text, json }
+
+    @Parameters(arity = "1..*", paramLabel = "FILE", description = "plumb files to check")
+    List<Path> files;
+
+    @Option(names = "--format", description = "output format: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE})",
+            defaultValue = "text")
+    Format format;
+
+    @Option(names = "--strict", description = "an undecided check fails the run")
+    boolean strict;
+
+    @Option(names = "--symbolic-timeout", paramLabel = "SECONDS", defaultValue = "5",
+            description = "time limit for each symbolic computation (default: ${DEFAULT-VALUE} s)")
+    double symbolicTimeout;
+
+    @Option(names = "--no-color", description = "plain output even on a terminal")
+    boolean noColor;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        PrintWriter out = spec.commandLine().getOut();
+        Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout));
+        List<Analysis> results = new ArrayList<>();
+        int status = 0;
+        for (Path f : files) {
+            Analysis a = analyzer.analyze(f);
+            results.add(a);
+            status = Math.max(status, a.exitStatus(strict));
+            if (format == Format.text) {
+                out.print(new TextReport(noColor ? Style.PLAIN : Style.detect()).render(a, strict));
+                out.flush();
+            }
+        }
+        if (format == Format.json) {
+            Object doc = results.size() == 1 ? JsonReport.toMap(results.get(0), strict)
+                    : results.stream().map(a -> JsonReport.toMap(a, strict)).toList();
+            out.print(Json.write(doc));
+            out.flush();
+        }
+        return status;
+    }
+}

@@ -1,0 +1,44 @@
+package dev.plumb.report;
+
+import dev.plumb.lang.Diagnostic;
+import dev.plumb.lang.Severity;
+import dev.plumb.lang.SourceFile;
+import dev.plumb.lang.Span;
+
+/**
+ * Prints a diagnostic the way compilers do: {@code FILE:LINE:COLUMN: severity: message}, the line
+ * quoted, carets under the span, then any detail lines.
+ */
+public final class DiagnosticPrinter {
+    private final Style style;
+
+    public DiagnosticPrinter(Style style) {
+        this.style = style;
+    }
+
+    public String print(SourceFile source, Diagnostic d) {
+        StringBuilder out = new StringBuilder();
+        Span s = d.span();
+        String where = s.line() > 0 ? source.path() + ":" + s.line() + ":" + s.column() : source.path();
+        String severity = switch (d.severity()) {
+            case ERROR -> style.red("error");
+            case WARNING -> style.yellow("warning");
+            case NOTE -> style.cyan("note");
+        };
+        out.append(style.bold(where)).append(": ").append(severity).append(": ").append(d.message()).append('\n');
+        if (s.line() > 0) {
+            String line = source.line(s.line()).replace('\t', ' ');
+            out.append("    ").append(line).append('\n');
+            int start = Math.max(1, s.column());
+            int end = s.endLine() == s.line() ? Math.max(start + 1, s.endColumn()) : line.length() + 1;
+            end = Math.min(end, Math.max(start + 1, line.length() + 1));
+            String carets = "^".repeat(end - start);
+            out.append("    ").append(" ".repeat(start - 1))
+                    .append(d.severity() == Severity.ERROR ? style.red(carets) : style.cyan(carets)).append('\n');
+        }
+        for (String detail : d.details()) {
+            out.append("  ").append(detail).append('\n');
+        }
+        return out.toString();
+    }
+}

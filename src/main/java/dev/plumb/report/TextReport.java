@@ -1,0 +1,86 @@
+package dev.plumb.report;
+
+import dev.plumb.lang.Diagnostic;
+import dev.plumb.model.Check;
+import dev.plumb.model.Status;
+import java.util.Locale;
+
+/** The human-readable summary that {@code plumb check} prints for one file. */
+public final class TextReport {
+    private final Style style;
+
+    public TextReport(Style style) {
+        this.style = style;
+    }
+
+    public String render(Analysis a, boolean strict) {
+        StringBuilder out = new StringBuilder();
+        DiagnosticPrinter printer = new DiagnosticPrinter(style);
+        for (Diagnostic d : a.diagnostics()) out.append(printer.print(a.source(), d));
+        if (!a.diagnostics().isEmpty()) out.append('\n');
+        String title = a.model() != null ? a.model().title() : "";
+        out.append(style.bold(a.source().path())).append(title.isEmpty() || title.equals(a.source().path()) ? "" : "  " + title)
+                .append('\n');
+        if (a.hasInputErrors()) {
+            out.append("  the input could not be understood; fix the errors above and run again\n");
+            return out.toString();
+        }
+        for (Check c : a.checks()) {
+            out.append(String.format(Locale.ROOT, "  %-9s %-22s %s  %s%n", c.kind(), c.label(), status(c.status()),
+                    c.message() + (c.factor() != null && !c.message().contains("factor") ? " (factor " + c.factor() + ")" : "")));
+        }
+        if (!a.derived().isEmpty()) {
+            out.append("\n  closed forms\n");
+            for (Analysis.DerivedForm d : a.derived()) {
+                out.append(String.format(Locale.ROOT, "    %s = %s   [%s]%n", d.expr(), d.closedForm(), d.unit()));
+            }
+        }
+        for (Analysis.CaseTable t : a.cases()) {
+            out.append('\n').append("  case ").append(style.bold(t.label()));
+            if (t.method() != null) out.append(style.dim("  (" + t.method() + ")"));
+            out.append('\n');
+            if (t.failure() != null) {
+                out.append("    ").append(style.red("not solved: ")).append(t.failure()).append('\n');
+                continue;
+            }
+            out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n",
+                    "quantity", "closed form", "numeric", "rel. diff", "num. err", "unit"));
+            for (Analysis.Row r : t.rows()) {
+                double f = r.shownUnit() != null ? r.shownFactor() : 1.0;
+                String unit = r.shownUnit() != null ? r.shownUnit() : r.unit();
+                out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n", r.expr(),
+                        num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), small(r.errorEstimate()), unit));
+            }
+        }
+        for (String note : a.notes()) out.append("  note: ").append(note).append('\n');
+        out.append('\n').append(summary(a, strict)).append('\n');
+        return out.toString();
+    }
+
+    private String summary(Analysis a, boolean strict) {
+        long holds = a.count(Status.HOLDS);
+        long fails = a.count(Status.FAILS);
+        long undecided = a.count(Status.UNDECIDED);
+        long pending = a.count(Status.NOT_EVALUATED);
+        String s = String.format(Locale.ROOT, "  %d hold, %d fail, %d undecided%s", holds, fails, undecided,
+                pending > 0 ? ", " + pending + " not evaluated yet" : "");
+        return a.ok(strict) ? style.green(s) : style.red(s);
+    }
+
+    private String status(Status s) {
+        String w = String.format(Locale.ROOT, "%-9s", s.word());
+        return switch (s) {
+            case HOLDS -> style.green(w);
+            case FAILS -> style.red(w);
+            case UNDECIDED, NOT_EVALUATED -> style.yellow(w);
+        };
+    }
+
+    private static String num(Double v, double factor) {
+        return v == null ? "-" : String.format(Locale.ROOT, "%.6e", v / factor);
+    }
+
+    private static String small(Double v) {
+        return v == null ? "-" : String.format(Locale.ROOT, "%.1e", v);
+    }
+}

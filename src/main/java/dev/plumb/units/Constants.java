@@ -1,0 +1,54 @@
+package dev.plumb.units;
+
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.Optional;
+
+/** The physical constants every plumb file may use by name, with CODATA 2018 values. */
+public final class Constants {
+  private static final String CODATA = "CODATA 2018 recommended value";
+  private static final String CODATA_EXACT = "CODATA 2018, exact (SI 2019 defining constant)";
+
+  /** The Planck constant, kept apart because hbar is computed from it. */
+  private static final double H = 6.62607015e-34;
+
+  private static final Map<String, Constant> ALL = build();
+
+  private Constants() {}
+
+  /** Ordered: pi, G, c, h, hbar, k_B, m_u, m_e, m_p, N_A, R_gas, sigma_SB, g_n. */
+  public static Map<String, Constant> all() {
+    return ALL;
+  }
+
+  public static Optional<Constant> lookup(String name) {
+    return Optional.ofNullable(ALL.get(name));
+  }
+
+  private static Map<String, Constant> build() {
+    Map<String, Constant> m = new LinkedHashMap<>();
+    put(m, "pi", Math.PI, "1", "ratio of a circle's circumference to its diameter", "mathematical constant");
+    put(m, "G", NamedUnits.G, "m^3 kg^-1 s^-2", "Newtonian constant of gravitation", CODATA);
+    put(m, "c", 299792458, "m/s", "speed of light in vacuum", CODATA_EXACT);
+    put(m, "h", H, "J s", "Planck constant", CODATA_EXACT);
+    put(m, "hbar", H / (2 * Math.PI), "J s", "reduced Planck constant h/(2 pi)", CODATA_EXACT + ", h/(2 pi)");
+    put(m, "k_B", 1.380649e-23, "J/K", "Boltzmann constant", CODATA_EXACT);
+    put(m, "m_u", 1.66053906660e-27, "kg", "atomic mass constant", CODATA);
+    put(m, "m_e", 9.1093837015e-31, "kg", "electron mass", CODATA);
+    put(m, "m_p", 1.67262192369e-27, "kg", "proton mass", CODATA);
+    put(m, "N_A", 6.02214076e23, "mol^-1", "Avogadro constant", CODATA_EXACT);
+    put(m, "R_gas", 8.314462618, "J/(mol K)", "molar gas constant N_A k_B", CODATA + " (N_A k_B, exact, shown to 10 digits)");
+    put(m, "sigma_SB", 5.670374419e-8, "W m^-2 K^-4", "Stefan-Boltzmann constant", CODATA + " (exact, shown to 10 digits)");
+    put(m, "g_n", 9.80665, "m/s^2", "standard acceleration of gravity", "3rd CGPM (1901), by definition");
+    return Collections.unmodifiableMap(m);
+  }
+
+  private static void put(Map<String, Constant> m, String name, double value, String unit, String description, String source) {
+    try {
+      m.put(name, new Constant(name, value, UnitParser.parse(unit), description, source));
+    } catch (UnitException e) {
+      throw new IllegalStateException("bad unit for constant " + name + ": " + unit, e);
+    }
+  }
+}
