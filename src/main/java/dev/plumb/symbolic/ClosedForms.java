@@ -134,12 +134,15 @@ final class ClosedForms {
                 IExpr a = symja.eval(F.Simplify(F.D(g, y)));
                 IExpr rest = symja.eval(F.Simplify(F.ReplaceAll(g, F.Rule(y, F.C0))));
                 if (a.has(y, true)) return false;
-                trail.add(new TrailStep("solve for " + dpx + " (linear in " + px + ")", dpx + " = " + print(g)));
+                trail.add(new TrailStep("solve for " + dpx + " (linear in " + px + ")", dpx + " = "
+                        + print(symja.eval(F.ReplaceAll(g, F.Rule(y, F.unaryAST1(head, x)))))));
                 IExpr ia = integrate(a);
                 trail.add(new TrailStep("integrate the coefficient of " + px, print(ia)));
                 IExpr phase = symja.eval(F.Subtract(ia, Points.at(symja, ia, x, b.point)));
                 if (rest.isZero()) {
-                    closed = symja.eval(F.Times(b.value, F.Exp(phase)));
+                    // exp(k*log(u)) becomes u^k only when the exponential is simplified on its own.
+                    IExpr growth = symja.eval(F.Simplify(F.Exp(ia), assumptions));
+                    closed = symja.eval(F.Times(b.value, F.Divide(growth, Points.at(symja, growth, x, b.point))));
                 } else {
                     IExpr inner = integrate(symja.eval(F.Times(rest, F.Exp(F.Negate(phase)))));
                     closed = symja.eval(F.Times(F.Exp(phase),

@@ -51,6 +51,13 @@ final class Comparison {
         try {
             IExpr d = symja.eval(F.Simplify(F.Subtract(claimed, truth), assumptions));
             if (!d.isZero()) d = symja.eval(F.Simplify(F.PowerExpand(F.Together(d)), assumptions));
+            if (!d.isZero()) {
+                // Exponential profiles compare better through their logarithms; PowerExpand is sound
+                // here because every base is positive under the assumptions, and the numeric test must agree.
+                IExpr logs = symja.eval(F.Simplify(F.Subtract(F.PowerExpand(F.Log(F.Together(claimed))),
+                        F.PowerExpand(F.Log(F.Together(truth)))), assumptions));
+                if (logs.isZero()) d = logs;
+            }
             symbolicZero = d.isZero();
             symbolic = symbolicZero ? "the difference simplifies to 0" : "the difference does not simplify to 0";
         } catch (Symja.Failure f) {

@@ -55,6 +55,10 @@ final class PlumbForm {
             return v < 0 ? neg(f) : f;
         }
         if (e instanceof ISymbol s) return symbol(s);
+        if (e instanceof IAST a && a.head() instanceof ISymbol h && a.argSize() == 1 && table.name(h) != null
+                && table.model().symbols().get(table.name(h)) instanceof dev.plumb.model.Symbol.Profile) {
+            return new Expr.Call(table.name(h), Span.NONE, 0, List.of(expr(a.arg1())), Span.NONE);
+        }
         if (e.isPlus()) return plus((IAST) e);
         if (e.isTimes()) return times((IAST) e);
         if (e.isPower()) return power((IAST) e);

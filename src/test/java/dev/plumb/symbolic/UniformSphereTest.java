@@ -22,8 +22,15 @@ class UniformSphereTest {
     @Test
     void derivesThePressureProfile() {
         Derived p = Fixtures.derived(result, "P(r)");
-        System.out.println(p.printed());
-        p.trail().forEach(t -> System.out.println("  " + t.action() + ": " + t.result()));
+        // P(r) = (2/3) pi G rho^2 (R^2 - r^2) with rho = 3M/(4 pi R^3): the analytic solution.
+        dev.plumb.lang.Expr expected = Fixtures.model("x.plumb", "param M [kg] > 0\nparam R [m] > 0\ncoord r [m] from 0 to R\n"
+                + "claim e: 1 [Pa] = 3*G*M^2*(R^2 - r^2)/(8*pi*R^6)\n").claims().get(0).equation().rhs();
+        var bindings = java.util.Map.of("M", 1.989e30, "R", 6.957e8, "r", 2.0e8);
+        double got = ConstantEvaluatorSupport.evaluate(model, p.closedForm(), bindings);
+        double want = ConstantEvaluatorSupport.evaluate(model, expected, bindings);
+        assertEquals(want, got, 1e-12 * want);
+        assertEquals("integrate", p.trail().get(2).action());
+        assertEquals("apply boundary surface", p.trail().get(3).action());
     }
 
     @Test
