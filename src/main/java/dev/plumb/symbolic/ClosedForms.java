@@ -171,8 +171,11 @@ final class ClosedForms {
     IExpr simplify(IExpr e) {
         IExpr best = symja.eval(F.Simplify(e, assumptions));
         int bestScore = score(best);
-        for (IExpr candidate : List.of(F.Together(best), F.Factor(best), F.Simplify(F.PowerExpand(best), assumptions),
-                F.Together(F.PowerExpand(best)))) {
+        IExpr together = symja.eval(F.Together(best));
+        // FactorTerms pulls the common constant out of a polynomial numerator: 3*G*M^2*(R^2 - r^2).
+        IExpr factoredTerms = F.Times(F.FactorTerms(F.Numerator(together)), F.Power(F.Denominator(together), F.CN1));
+        for (IExpr candidate : List.of(together, F.Factor(best), F.Simplify(F.PowerExpand(best), assumptions),
+                F.Together(F.PowerExpand(best)), factoredTerms)) {
             try {
                 IExpr c = symja.eval(candidate);
                 int sc = score(c);

@@ -29,6 +29,7 @@ class UniformSphereTest {
         double got = ConstantEvaluatorSupport.evaluate(model, p.closedForm(), bindings);
         double want = ConstantEvaluatorSupport.evaluate(model, expected, bindings);
         assertEquals(want, got, 1e-12 * want);
+        System.out.println("uniform sphere: P(r) = " + p.printed());
         assertEquals("integrate", p.trail().get(2).action());
         assertEquals("apply boundary surface", p.trail().get(3).action());
     }
