@@ -122,7 +122,7 @@ final class CaseProblem {
         surface = surf;
         surfaceBoundary = surfB;
         fixedSurface = fixedSurf;
-        limit = Double.isNaN(b) ? a + 1e4 * scaleX : fixedSurf ? a + 50 * (b - a) : b;
+        limit = Double.isNaN(b) ? a + 1e4 * scaleX : fixedSurf ? a + 1e4 * (b - a) : b;
 
         scale = new double[form.stateSize];
         String from = ExprPrinter.print(coord.from());
@@ -140,9 +140,10 @@ final class CaseProblem {
                 guess = guesses.guess(componentDimension(i));
                 source = "dimensional estimate";
             }
-            if (!(guess > 0)) {
-                guess = 0;
-                source = "zero";
+            if (!(guess > 0) || !Double.isFinite(guess)) {
+                // No estimate from the inputs: start from one SI unit and let the rescue scan widen the search.
+                guess = 1.0;
+                source = "one SI unit";
             }
             unknowns.add(new Unknown(name, i, -1, guess, guess > 0, source, coord.span()));
         }

@@ -37,8 +37,14 @@ final class Shooting {
             t = p.integrate(z);
             f = mismatch(p, t);
         } catch (SolveException first) {
-            throw new SolveException(first.getMessage().isEmpty() ? p.form.coordinate.span() : first.span(),
-                    "the shooting could not start from its first guess (" + guessText(p) + "): " + first.getMessage());
+            double[] rescued = rescue(p, z);
+            if (rescued == null) {
+                throw new SolveException(first.span(), "the shooting could not start from its first guess (" + guessText(p)
+                        + "), nor from " + RESCUE_TRIALS + " guesses up to a factor 1e6 away in every direction: " + first.getMessage());
+            }
+            z = rescued;
+            t = p.integrate(z);
+            f = mismatch(p, t);
         }
         double norm = norm(f);
         List<String> history = new ArrayList<>();
@@ -91,6 +97,46 @@ final class Shooting {
         throw new SolveException(p.form.coordinate.span(), "the shooting on " + names(p) + " did not converge in "
                 + MAX_ITERATIONS + " Newton steps (mismatch " + String.format("%.3g", norm) + " at " + p.describeUnknowns(z)
                 + "; started from " + guessText(p) + ")");
+    }
+
+    private static final int RESCUE_TRIALS = 6;
+
+    /**
+     * When the first guess gives no usable trajectory (the surface beyond reach, a non-finite value),
+     * tries guesses further and further away along each unknown and each pair, in log coordinates, and
+     * returns the first that does; null when none does.
+     */
+    private static double[] rescue(CaseProblem p, double[] z0) {
+        int n = z0.length;
+        List<double[]> directions = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            for (int si = -1; si <= 1; si += 2) {
+                double[] d = new double[n];
+                d[i] = si;
+                directions.add(d);
+                for (int j = i + 1; j < n; j++) {
+                    for (int sj = -1; sj <= 1; sj += 2) {
+                        double[] e = d.clone();
+                        e[j] = sj;
+                        directions.add(e);
+                    }
+                }
+            }
+        }
+        for (int k = 1; k <= RESCUE_TRIALS; k++) {
+            double step = k * Math.log(10.0);
+            for (double[] d : directions) {
+                double[] z = z0.clone();
+                for (int i = 0; i < n; i++) z[i] += (p.unknowns.get(i).log() ? step : Math.pow(10, k)) * d[i];
+                try {
+                    mismatch(p, p.integrate(z));
+                    return z;
+                } catch (SolveException tryFurther) {
+                    // Keep widening the search.
+                }
+            }
+        }
+        return null;
     }
 
     static String names(CaseProblem p) {
