@@ -1,0 +1,390 @@
+package dev.plumb.numeric;
+
+import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Span;
+import dev.plumb.lang.Stmt;
+import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.Symbol;
+import dev.plumb.units.Dimension;
+import dev.plumb.units.Rational;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeSet;
+import org.apache.commons.math3.analysis.solvers.BrentSolver;
+
+/**
+ * One case made concrete: the relations compiled with the case's SI values, the boundaries sorted
+ * into start values, a surface and conditions, the unknowns a shooting must find with their
+ * starting guesses, and the integration that turns a vector of unknowns into a {@link Trajectory}.
+ */
+final class CaseProblem {
+
+    /** A value the shooting adjusts: a start value of the state or an unknown constant. */
+    record Unknown(String name, int component, int constant, double guess, boolean log, String guessSource, Span span) { }
+
+    /** How a condition's mismatch is measured: as a log ratio, or as a difference over a scale. */
+    record Condition(Stmt.Boundary boundary, boolean log, double scale) { }
+
+    final Formulation form;
+    final Map<String, Double> values;
+    final NumericOptions options;
+    final double a, b, scaleX, limit;
+    final double[] frame;
+    final RelationSystem system;
+    final Integration integration;
+    final Evaluator[] startValue;
+    final Integration.Surface surface;
+    final boolean fixedSurface;
+    final Stmt.Boundary surfaceBoundary;
+    final List<Condition> conditions = new ArrayList<>();
+    final List<Unknown> unknowns = new ArrayList<>();
+    final double[] scale;
+    private final ConstantEvaluator constants;
+
+    CaseProblem(Formulation form, Map<String, Double> values, NumericOptions options, Map<String, Expr> closedForms)
+            throws SolveException {
+        this.form = form;
+        this.values = values;
+        this.options = options;
+        this.constants = new ConstantEvaluator(n -> form.model.symbols().get(n), values);
+        Symbol.Coordinate coord = form.coordinate;
+        a = constant(coord.from(), "the start of the interval");
+        b = form.freeEnd != null ? Double.NaN : constant(coord.to(), "the end of the interval");
+        if (b == a) throw new SolveException(coord.span(), "the interval of '" + coord.name() + "' is empty");
+        int[] locks = {0};
+        ExprCompiler compiler = new ExprCompiler(form.model, values, new ExprCompiler.Slots() {
+            @Override public int profile(Symbol.Profile p, int order, Expr.Call call) throws SolveException {
+                int j = form.profileIndex(p.name());
+                if (order > form.order[j]) throw new SolveException(call.span(), "derivative beyond the order of the relations");
+                return order == form.order[j] ? form.derivativeSlot(j) : 1 + form.base[j] + order;
+            }
+
+            @Override public int constant(Symbol.UnknownConstant u, Expr.Name at) throws SolveException {
+                if (u.equals(form.freeEnd)) {
+                    throw new SolveException(at.span(), "the relations use '" + u.name() + "', the free end of the interval: "
+                            + "the numeric engine needs relations that do not depend on where the surface is");
+                }
+                return form.constantSlot(form.constants.indexOf(u));
+            }
+
+            @Override public int newLock() {
+                return form.firstLockSlot() + locks[0]++;
+            }
+        });
+        system = RelationSystem.compile(form, compiler, () -> {
+            double[] f = new double[form.firstLockSlot() + locks[0]];
+            Arrays.fill(f, form.firstLockSlot(), f.length, Double.NaN);
+            return f;
+        });
+        frame = system.frame;
+        startValue = new Evaluator[form.stateSize];
+        ScalingGuess guesses = new ScalingGuess(form.model, values);
+        double xScale = Double.isNaN(b) ? guesses.guess(coord.dimension()) : Math.abs(b - a);
+        scaleX = Double.isFinite(xScale) && xScale > 0 ? xScale : 1.0;
+
+        Integration.Surface surf = null;
+        Stmt.Boundary surfB = null;
+        boolean fixedSurf = false;
+        List<Stmt.Boundary> rest = new ArrayList<>();
+        for (Stmt.Boundary bd : form.model.boundaries()) {
+            Expr lhs = bd.equation().lhs(), rhs = bd.equation().rhs();
+            int comp = component(lhs);
+            Expr other = rhs;
+            if (comp < 0) {
+                comp = component(rhs);
+                other = lhs;
+            }
+            boolean otherKnown = comp >= 0 && !Formulation.mentionsUnknown(form.model, other);
+            Expr arg = comp >= 0 ? ((Expr.Call) (other == rhs ? lhs : rhs)).args().get(0) : null;
+            if (comp >= 0 && !Formulation.mentionsUnknown(form.model, arg) && !isFreeEnd(arg) && point(arg) == a
+                    && startValue[comp] == null && !mentionsProfile(other)) {
+                startValue[comp] = compiler.compile(other);
+            } else if (surf == null && otherKnown && arg != null && isFreeEnd(arg)) {
+                surf = new Integration.Surface(comp, constant(other, "the surface value"), ExprPrinter.print(lhs));
+                surfB = bd;
+            } else if (surf == null && otherKnown && arg != null && form.freeEnd == null && comp == form.base[componentProfile(comp)]
+                    && !Formulation.mentionsUnknown(form.model, arg) && point(arg) == b && constant(other, "the boundary value") == 0.0) {
+                surf = new Integration.Surface(comp, 0.0, ExprPrinter.print(lhs));
+                surfB = bd;
+                fixedSurf = true;
+            } else {
+                rest.add(bd);
+            }
+        }
+        if (form.freeEnd != null && surf == null) {
+            throw new SolveException(form.freeEnd.span(), "the end of the interval '" + form.freeEnd.name()
+                    + "' is unknown, but no boundary says where it is: add one such as boundary "
+                    + form.profiles.get(0).name() + "(" + form.freeEnd.name() + ") = 0");
+        }
+        surface = surf;
+        surfaceBoundary = surfB;
+        fixedSurface = fixedSurf;
+        limit = Double.isNaN(b) ? a + 1e4 * scaleX : fixedSurf ? a + 1e4 * (b - a) : b;
+
+        scale = new double[form.stateSize];
+        String from = ExprPrinter.print(coord.from());
+        for (int i = 0; i < form.stateSize; i++) {
+            if (startValue[i] != null) continue;
+            String name = form.componentName(i) + "(" + from + ")";
+            double guess = Double.NaN;
+            String source = null;
+            Expr closed = closedForms.get(name);
+            if (closed != null) {
+                guess = tryConstant(closed);
+                source = "closed form";
+            }
+            if (!(Math.abs(guess) > 0) || !Double.isFinite(guess)) {
+                guess = guesses.guess(componentDimension(i));
+                source = "dimensional estimate";
+            }
+            if (!(guess > 0) || !Double.isFinite(guess)) {
+                // No estimate from the inputs: start from one SI unit and let the rescue scan widen the search.
+                guess = 1.0;
+                source = "one SI unit";
+            }
+            unknowns.add(new Unknown(name, i, -1, guess, guess > 0, source, coord.span()));
+        }
+        for (int k = 0; k < form.constants.size(); k++) {
+            Symbol.UnknownConstant u = form.constants.get(k);
+            double guess = Double.NaN;
+            String source = null;
+            Expr closed = closedForms.get(u.name());
+            if (closed != null) {
+                guess = tryConstant(closed);
+                source = "closed form";
+            }
+            if (!(Math.abs(guess) > 0) || !Double.isFinite(guess)) {
+                guess = guesses.guess(u.dimension());
+                source = "dimensional estimate";
+            }
+            if (!(guess > 0)) {
+                guess = 1.0;
+                source = "one";
+            }
+            unknowns.add(new Unknown(u.name(), -1, k, guess, guess > 0, source, u.span()));
+        }
+        int count = rest.size() + (fixedSurf ? 1 : 0);
+        if (count != unknowns.size()) {
+            List<String> un = unknowns.stream().map(Unknown::name).toList();
+            List<String> cond = new ArrayList<>(rest.stream().map(CaseProblem::describe).toList());
+            if (fixedSurf) cond.add(0, describe(surfB) + " (the surface)");
+            Span where = count > unknowns.size() ? rest.get(rest.size() - 1).span() : coord.span();
+            throw new SolveException(where, "the boundary problem is " + (count > unknowns.size() ? "over" : "under")
+                    + "-determined: " + un.size() + " unknown(s) " + (un.isEmpty() ? "" : "(" + String.join(", ", un) + ") ")
+                    + "but " + count + " condition(s)" + (cond.isEmpty() ? "" : " (" + String.join(", ", cond) + ")")
+                    + (count < unknowns.size() ? "; add a boundary for each unknown" : "; remove a boundary or add an unknown"));
+        }
+        for (int i = 0; i < form.stateSize; i++) {
+            scale[i] = startScale(i, rest);
+        }
+        for (Stmt.Boundary bd : rest) conditions.add(condition(bd));
+        double[] absTol = new double[form.stateSize], relTol = new double[form.stateSize];
+        for (int i = 0; i < form.stateSize; i++) {
+            absTol[i] = options.absTolScale() * scale[i];
+            relTol[i] = options.relTol();
+        }
+        // Near a free surface the surface component falls far below any absolute tolerance (P ~ s^(n+1)),
+        // and only relative control keeps its zero, and so the radius, accurate.
+        if (surf != null) absTol[surf.index()] = 1e-40 * options.absTolScale() * scale[surf.index()];
+        List<ExprCompiler.CoordinateCondition> conds = compiler.conditions();
+        integration = new Integration(system, absTol, relTol, 1e-13 * scaleX, breaks(conds), conds, scale);
+    }
+
+    boolean forward() {
+        return (Double.isNaN(b) ? limit : b) > a;
+    }
+
+    static String describe(Stmt.Boundary bd) {
+        return bd.label().present() ? "'" + bd.label().name() + "'" : ExprPrinter.print(bd.equation().lhs()) + " = "
+                + ExprPrinter.print(bd.equation().rhs());
+    }
+
+    private double startScale(int i, List<Stmt.Boundary> rest) {
+        if (startValue[i] != null) {
+            Arrays.fill(frame, form.constantSlot(0), form.firstLockSlot(), 1.0);
+            double v = Math.abs(startValue[i].at(frame));
+            if (v > 0 && Double.isFinite(v)) return v;
+        }
+        for (Unknown u : unknowns) if (u.component() == i && u.guess() > 0) return u.guess();
+        for (Stmt.Boundary bd : rest) {
+            if (component(bd.equation().lhs()) == i && !Formulation.mentionsUnknown(form.model, bd.equation().rhs())) {
+                double v = Math.abs(tryConstant(bd.equation().rhs()));
+                if (v > 0 && Double.isFinite(v)) return v;
+            }
+        }
+        double g = new ScalingGuess(form.model, values).guess(componentDimension(i));
+        return g > 0 && Double.isFinite(g) ? g : 1.0;
+    }
+
+    private Condition condition(Stmt.Boundary bd) {
+        Expr rhs = bd.equation().rhs();
+        double target = Formulation.mentionsUnknown(form.model, rhs) ? Double.NaN : tryConstant(rhs);
+        int comp = component(bd.equation().lhs());
+        if (target > 0 && Double.isFinite(target)) return new Condition(bd, true, target);
+        double s = Math.abs(target) > 0 && Double.isFinite(target) ? Math.abs(target) : comp >= 0 ? scale[comp] : 1.0;
+        return new Condition(bd, false, s);
+    }
+
+    Dimension componentDimension(int i) {
+        int j = componentProfile(i);
+        return form.profiles.get(j).dimension().div(form.coordinate.dimension().pow(Rational.of(i - form.base[j])));
+    }
+
+    int componentProfile(int i) {
+        for (int j = form.profiles.size() - 1; j >= 0; j--) if (i >= form.base[j]) return j;
+        return 0;
+    }
+
+    /** The state component a plain call {@code P(x)} or {@code P'(x)} reads, or -1. */
+    private int component(Expr e) {
+        if (!(e instanceof Expr.Call c) || c.args().size() != 1) return -1;
+        int j = form.profileIndex(c.callee());
+        if (j < 0 || c.order() >= form.order[j]) return -1;
+        return form.base[j] + c.order();
+    }
+
+    private boolean mentionsProfile(Expr e) {
+        var orders = new java.util.LinkedHashMap<String, Integer>();
+        Formulation.collectOrders(form.model, e, orders, new java.util.HashSet<>());
+        return !orders.isEmpty();
+    }
+
+    private boolean isFreeEnd(Expr arg) {
+        return form.freeEnd != null && arg instanceof Expr.Name n && n.id().equals(form.freeEnd.name());
+    }
+
+    private double point(Expr arg) throws SolveException {
+        return constant(arg, "the point " + ExprPrinter.print(arg));
+    }
+
+    private double constant(Expr e, String what) throws SolveException {
+        try {
+            return constants.evaluate(e);
+        } catch (ConstantEvaluator.NotConstant ex) {
+            throw new SolveException(ex.where.span(), what + " must be a fixed number in each case: " + ex.getMessage());
+        }
+    }
+
+    private double tryConstant(Expr e) {
+        try {
+            return constants.evaluate(e);
+        } catch (ConstantEvaluator.NotConstant ex) {
+            return Double.NaN;
+        }
+    }
+
+    private double[] breaks(List<ExprCompiler.CoordinateCondition> conds) {
+        TreeSet<Double> out = new TreeSet<>();
+        double lo = Math.min(a, limit), hi = Math.max(a, limit);
+        int samples = 256;
+        BrentSolver brent = new BrentSolver(1e-15 * Math.max(Math.abs(lo), Math.abs(hi)) + 1e-300);
+        for (ExprCompiler.CoordinateCondition c : conds) {
+            double[] f = frame.clone();
+            java.util.function.DoubleUnaryOperator g = x -> {
+                f[0] = x;
+                return c.g().at(f);
+            };
+            double x0 = lo, g0 = g.applyAsDouble(lo);
+            for (int k = 1; k <= samples; k++) {
+                double x1 = lo + (hi - lo) * k / samples, g1 = g.applyAsDouble(x1);
+                if (g1 == 0.0 && x1 < hi) {
+                    out.add(x1);
+                } else if (g0 * g1 < 0) {
+                    out.add(brent.solve(200, g::applyAsDouble, x0, x1));
+                }
+                x0 = x1;
+                g0 = g1;
+            }
+        }
+        out.remove(lo);
+        out.remove(hi);
+        return out.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    /** Writes the unknown constants into the frame. */
+    void load(double[] constantValues) {
+        System.arraycopy(constantValues, 0, frame, form.constantSlot(0), constantValues.length);
+    }
+
+    /** The constants and start state for a vector of shooting unknowns (log or linear coordinates). */
+    double[][] decode(double[] z) {
+        double[] consts = new double[form.constants.size()];
+        double[] y0 = new double[form.stateSize];
+        for (int k = 0; k < unknowns.size(); k++) {
+            Unknown u = unknowns.get(k);
+            double v = u.log() ? Math.exp(z[k]) : z[k] * (u.component() >= 0 ? scale[u.component()] : 1.0);
+            if (u.component() >= 0) y0[u.component()] = v;
+            else consts[u.constant()] = v;
+        }
+        load(consts);
+        for (int i = 0; i < form.stateSize; i++) if (startValue[i] != null) y0[i] = startValue[i].at(frame);
+        return new double[][]{consts, y0};
+    }
+
+    double[] initialVector() {
+        double[] z = new double[unknowns.size()];
+        for (int k = 0; k < z.length; k++) {
+            Unknown u = unknowns.get(k);
+            z[k] = u.log() ? Math.log(u.guess()) : u.guess() / (u.component() >= 0 ? scale[u.component()] : 1.0);
+        }
+        return z;
+    }
+
+    /** Integrates from the start to the end of the interval (or to the surface) for the unknowns {@code z}. */
+    Trajectory integrate(double[] z) throws SolveException {
+        double[][] d = decode(z);
+        double[] consts = d[0], y0 = d[1];
+        for (int i = 0; i < y0.length; i++) {
+            if (!Double.isFinite(y0[i])) {
+                throw new SolveException(form.coordinate.span(), "the start value of " + form.componentName(i) + " is not finite");
+            }
+        }
+        integration.freeBranches();
+        double[] slope = system.derivatives(a, y0);
+        double x = a;
+        double[] y = y0;
+        String note = "regular start";
+        boolean singular = false;
+        for (double s : slope) singular |= !Double.isFinite(s);
+        if (singular) {
+            double[] tol = new double[y0.length];
+            for (int i = 0; i < tol.length; i++) tol[i] = options.relTol() * Math.max(Math.abs(y0[i]), scale[i] * options.absTolScale() / options.relTol());
+            SeriesStart.Result r = SeriesStart.start(system, a, y0, (forward() ? 1 : -1) * 1e-2 * scaleX, scale, tol);
+            x = r.x();
+            y = r.y();
+            note = r.description();
+        }
+        Trajectory t = new Trajectory(this, consts, y0, x, y, note);
+        double end = Double.isNaN(b) ? limit : surface != null ? limit : b;
+        Integration.Stop stop = integration.advance(x, y, end, surface);
+        t.steps += stop.steps();
+        if (surface != null) {
+            if (!stop.atSurface()) {
+                throw new SolveException(surfaceBoundary.span(), "the surface " + surface.description() + " = "
+                        + SeriesStart.trim(surface.value()) + " was never reached: integrated from " + form.coordinate.name() + " = "
+                        + SeriesStart.trim(a) + " to " + String.format("%.6g", end) + " with " + describeUnknowns(z)
+                        + "; at the end " + integration.describe(stop.y()));
+            }
+            t.surfaceX = stop.x();
+            t.surfaceState = stop.y().clone();
+            t.states.put(stop.x(), stop.y().clone());
+        } else {
+            t.states.put(stop.x(), stop.y().clone());
+        }
+        return t;
+    }
+
+    String describeUnknowns(double[] z) {
+        if (unknowns.isEmpty()) return "no unknowns";
+        double[][] d = decode(z);
+        List<String> parts = new ArrayList<>();
+        for (Unknown u : unknowns) {
+            double v = u.component() >= 0 ? d[1][u.component()] : d[0][u.constant()];
+            parts.add(u.name() + " = " + String.format("%.9g", v));
+        }
+        return String.join(", ", parts);
+    }
+}

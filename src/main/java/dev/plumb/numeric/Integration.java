@@ -1,0 +1,167 @@
+package dev.plumb.numeric;
+
+import java.util.List;
+import org.apache.commons.math3.exception.MaxCountExceededException;
+import org.apache.commons.math3.exception.NumberIsTooSmallException;
+import org.apache.commons.math3.ode.events.EventHandler;
+import org.apache.commons.math3.ode.nonstiff.DormandPrince853Integrator;
+import org.apache.commons.math3.ode.sampling.StepHandler;
+import org.apache.commons.math3.ode.sampling.StepInterpolator;
+
+/**
+ * Integrates one case's relation system between two points with Dormand-Prince 8(5,3) from
+ * Commons Math, stopping at every break of a piecewise relation (so no step straddles a kink and
+ * each segment uses its own branch), and optionally at a free surface where one state component
+ * reaches a given value. A step whose stages leave the domain of the relations (a negative base
+ * under a fractional power just past a surface) is rejected rather than accepted with NaN, so a
+ * surface the relations cannot cross is approached until the step size runs out; that end point
+ * is accepted as the surface only when the component is within a hair of the surface value.
+ */
+final class Integration {
+
+    /** Where an integration stopped. */
+    record Stop(double x, double[] y, boolean atSurface, int steps) { }
+
+    /** The surface condition: component {@code index} reaches {@code value}. */
+    record Surface(int index, double value, String description) { }
+
+    static final String METHOD = "Dormand-Prince 8(5,3)";
+
+    final RelationSystem system;
+    final double[] absTol, relTol;
+    final double minStep;
+    final double[] breaks;
+    final List<ExprCompiler.CoordinateCondition> conditions;
+    final double[] scale;
+
+    Integration(RelationSystem system, double[] absTol, double[] relTol, double minStep, double[] breaks,
+                List<ExprCompiler.CoordinateCondition> conditions, double[] scale) {
+        this.system = system;
+        this.absTol = absTol;
+        this.relTol = relTol;
+        this.minStep = minStep;
+        this.breaks = breaks;
+        this.conditions = conditions;
+        this.scale = scale;
+    }
+
+    /** Integrates from (x0, y0) to x1 (either direction), or until the surface when one is given. */
+    Stop advance(double x0, double[] y0, double x1, Surface surface) throws SolveException {
+        double x = x0;
+        double[] y = y0.clone();
+        int steps = 0;
+        boolean forward = x1 > x0;
+        while (x != x1) {
+            double next = x1;
+            for (double b : breaks) {
+                if (forward ? b > x && b < next : b < x && b > next) next = b;
+            }
+            lockBranches(0.5 * (x + next));
+            Stop s = segment(x, y, next, surface);
+            steps += s.steps();
+            x = s.x();
+            y = s.y();
+            if (s.atSurface()) return new Stop(x, y, true, steps);
+        }
+        freeBranches();
+        return new Stop(x, y, false, steps);
+    }
+
+    private void lockBranches(double mid) {
+        double[] f = system.frame;
+        double saved = f[0];
+        f[0] = mid;
+        for (ExprCompiler.CoordinateCondition c : conditions) f[c.lockSlot()] = Double.NaN;
+        for (ExprCompiler.CoordinateCondition c : conditions) f[c.lockSlot()] = c.op().test(c.g().at(f), 0.0) ? 1.0 : 0.0;
+        f[0] = saved;
+    }
+
+    void freeBranches() {
+        for (ExprCompiler.CoordinateCondition c : conditions) system.frame[c.lockSlot()] = Double.NaN;
+    }
+
+    private Stop segment(double x0, double[] y0, double x1, Surface surface) throws SolveException {
+        double span = Math.abs(x1 - x0);
+        DormandPrince853Integrator dp = new Guarded(system, Math.min(minStep, span * 1e-3), span, absTol, relTol);
+        system.takeNonFinite();
+        dp.setMaxEvaluations(2_000_000);
+        double[] last = {x0};
+        double[][] lastY = {y0.clone()};
+        int[] steps = {0};
+        dp.addStepHandler(new StepHandler() {
+            @Override public void init(double t0, double[] y, double t) { }
+
+            @Override public void handleStep(StepInterpolator interpolator, boolean isLast) {
+                last[0] = interpolator.getCurrentTime();
+                lastY[0] = interpolator.getInterpolatedState().clone();
+                steps[0]++;
+            }
+        });
+        boolean[] hit = {false};
+        if (surface != null) {
+            dp.addEventHandler(new EventHandler() {
+                @Override public void init(double t0, double[] y, double t) { }
+
+                @Override public double g(double t, double[] y) {
+                    return y[surface.index()] - surface.value();
+                }
+
+                @Override public Action eventOccurred(double t, double[] y, boolean increasing) {
+                    hit[0] = true;
+                    return Action.STOP;
+                }
+
+                @Override public void resetState(double t, double[] y) { }
+            }, Math.max(span / 16, minStep * 10), Math.max(1e-15 * Math.max(Math.abs(x0), Math.abs(x1)), minStep * 1e-2), 200);
+        }
+        double[] y = y0.clone();
+        try {
+            double end = dp.integrate(system, x0, y0.clone(), x1, y);
+            return new Stop(end, y, hit[0], steps[0]);
+        } catch (NumberIsTooSmallException stalled) {
+            double xs = last[0];
+            double[] ys = lastY[0];
+            if (surface != null && Math.abs(ys[surface.index()] - surface.value()) <= 1e-6 * scale[surface.index()]) {
+                return new Stop(xs, ys, true, steps[0]);
+            }
+            throw new SolveException(system.form.coordinate.span(), "the integration stalled at "
+                    + system.form.coordinate.name() + " = " + String.format("%.9g", xs)
+                    + (system.lastFinite() ? "" : ", where the relations give a non-finite value")
+                    + " (step size below " + String.format("%.3g", Math.min(minStep, span * 1e-3)) + "; state "
+                    + describe(ys) + "): the relations may be singular there");
+        } catch (MaxCountExceededException tooMany) {
+            throw new SolveException(system.form.coordinate.span(), "the integration needed more than 2,000,000 evaluations between "
+                    + system.form.coordinate.name() + " = " + String.format("%.6g", x0) + " and " + String.format("%.6g", last[0])
+                    + " (tolerance " + relTol[0] + "): the relations are too stiff here");
+        }
+    }
+
+    /**
+     * Dormand-Prince 8(5,3) that rejects any step in which a stage was not finite: the embedded
+     * error estimate alone would accept it, because the stand-in derivatives are equal in every
+     * stage and their weighted difference vanishes.
+     */
+    private static final class Guarded extends DormandPrince853Integrator {
+        private final RelationSystem system;
+
+        Guarded(RelationSystem system, double minStep, double maxStep, double[] absTol, double[] relTol) {
+            super(minStep, maxStep, absTol, relTol);
+            this.system = system;
+        }
+
+        @Override
+        protected double estimateError(double[][] yDotK, double[] y0, double[] y1, double h) {
+            double error = super.estimateError(yDotK, y0, y1, h);
+            return system.takeNonFinite() ? 1e10 : error;
+        }
+    }
+
+    String describe(double[] y) {
+        StringBuilder sb = new StringBuilder();
+        for (int i = 0; i < y.length; i++) {
+            if (i > 0) sb.append(", ");
+            sb.append(system.form.componentName(i)).append(" = ").append(String.format("%.6g", y[i]));
+        }
+        return sb.toString();
+    }
+}

@@ -1,0 +1,220 @@
+package dev.plumb.numeric;
+
+import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Span;
+import dev.plumb.lang.Stmt;
+import dev.plumb.model.Check;
+import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.Model;
+import dev.plumb.model.Status;
+import dev.plumb.units.UnitCatalog;
+import dev.plumb.units.UnitException;
+import dev.plumb.units.UnitParser;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The numeric stage: integrates the relations of a checked model for every case (shooting for the
+ * unknowns the boundaries fix) and sets each shown, claimed and expected quantity beside its
+ * closed form.
+ */
+public final class NumericEngine {
+
+    /** The label of the one implicit case of a file without free parameters. */
+    public static final String IMPLICIT_CASE = "fixed";
+
+    private NumericEngine() {
+    }
+
+    /**
+     * Solves one case given explicit SI parameter values. The map gives every free parameter and may
+     * override fixed ones (for sweeps).
+     */
+    public static Solution solve(Model model, Map<String, Double> parameterValues, NumericOptions options) throws SolveException {
+        return solve(model, parameterValues, options, Map.of());
+    }
+
+    static Solution solve(Model model, Map<String, Double> parameterValues, NumericOptions options, Map<String, Expr> closedForms)
+            throws SolveException {
+        if (model.hasErrors()) throw new SolveException(Span.NONE, "the file has errors; it is not integrated");
+        Formulation form = Formulation.of(model);
+        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms);
+        return new SolvedCase(problem, Shooting.solve(problem));
+    }
+
+    /** A quantity of the comparison table with the statement it comes from. */
+    private record Wanted(Expr expr, String shownUnit, Expr claimed) { }
+
+    /**
+     * Solves every case of the model and compares. {@code closedForms} maps a quantity as printed by
+     * ExprPrinter ("P(0)", "m(R)", "xi1") to its closed form in parameters and constants; may be empty.
+     */
+    public static NumericResult run(Model model, Map<String, Expr> closedForms, NumericOptions options) {
+        List<CaseResult> cases = new ArrayList<>();
+        List<Check> checks = new ArrayList<>();
+        List<String> notes = new ArrayList<>();
+        if (model.hasErrors()) {
+            notes.add("the file has errors; nothing was integrated");
+            return new NumericResult(cases, checks, notes);
+        }
+        List<dev.plumb.model.CaseValues> all = new ArrayList<>(model.cases());
+        if (all.isEmpty() && model.freeParams().isEmpty()) {
+            all.add(new dev.plumb.model.CaseValues(IMPLICIT_CASE, Span.NONE, Map.of(), Map.of()));
+        } else if (all.isEmpty()) {
+            notes.add("no case gives values to the free parameters, so nothing was integrated; add e.g. case sun: "
+                    + model.freeParams().get(0).name() + " = ...");
+        }
+        Map<String, Wanted> wanted = wanted(model);
+        for (dev.plumb.model.CaseValues c : all) {
+            List<Stmt.Expect> expects = model.expects().stream()
+                    .filter(e -> e.caseName() == null ? c.label().equals(IMPLICIT_CASE) || model.cases().size() <= 1
+                            : e.caseName().equals(c.label())).toList();
+            Solution solution;
+            try {
+                solution = solve(model, c.values(), options, closedForms);
+            } catch (SolveException ex) {
+                String failure = where(model, ex.span()) + ex.getMessage();
+                cases.add(new CaseResult(c.label(), null, List.of(), failure));
+                for (Stmt.Expect e : expects) {
+                    checks.add(Check.of("expect", label(e), e.span(), Status.FAILS,
+                            "case '" + c.label() + "' could not be solved numerically: " + ex.getMessage()));
+                }
+                continue;
+            }
+            Solution tight = null;
+            if (options.errorEstimate()) {
+                try {
+                    tight = solve(model, c.values(), options.tighter(), closedForms);
+                } catch (SolveException ex) {
+                    notes.add("case '" + c.label() + "': the second solve at a tighter tolerance failed, so no error estimate: "
+                            + ex.getMessage());
+                }
+            }
+            List<QuantityRow> rows = new ArrayList<>();
+            for (Map.Entry<String, Wanted> w : wanted.entrySet()) {
+                rows.add(row(model, c, w.getKey(), w.getValue(), solution, tight, closedForms, notes));
+            }
+            for (Stmt.Expect e : expects) checks.add(expect(model, c, e, solution, tight));
+            cases.add(new CaseResult(c.label(), solution.method(), rows, null));
+        }
+        return new NumericResult(cases, checks, notes);
+    }
+
+    private static Map<String, Wanted> wanted(Model model) {
+        Map<String, Wanted> out = new LinkedHashMap<>();
+        for (Stmt.Show s : model.shows()) out.putIfAbsent(ExprPrinter.print(s.expr()), new Wanted(s.expr(), s.unit() == null ? null : s.unit().text(), null));
+        for (Stmt.Claim c : model.claims()) {
+            String key = ExprPrinter.print(c.equation().lhs());
+            Wanted old = out.get(key);
+            out.put(key, new Wanted(old == null ? c.equation().lhs() : old.expr(), old == null ? null : old.shownUnit(), c.equation().rhs()));
+        }
+        for (Stmt.Expect e : model.expects()) out.putIfAbsent(ExprPrinter.print(e.lhs()), new Wanted(e.lhs(), null, null));
+        return out;
+    }
+
+    private static QuantityRow row(Model model, dev.plumb.model.CaseValues c, String key, Wanted w, Solution solution,
+                                   Solution tight, Map<String, Expr> closedForms, List<String> notes) {
+        double numeric;
+        try {
+            numeric = solution.evaluate(w.expr());
+        } catch (SolveException ex) {
+            notes.add("case '" + c.label() + "': " + key + " could not be evaluated: " + where(model, ex.span()) + ex.getMessage());
+            numeric = Double.NaN;
+        }
+        double error = Double.NaN;
+        if (tight != null && Double.isFinite(numeric)) {
+            try {
+                error = Math.abs(tight.evaluate(w.expr()) - numeric);
+            } catch (SolveException ignored) {
+                // The first solve evaluated it; a failure here only means no estimate.
+            }
+        }
+        Double closed = null;
+        String source = null;
+        Expr derived = closedForms.get(key);
+        if (derived != null) {
+            closed = constant(model, derived, c.values());
+            source = "derived";
+        } else if (w.claimed() != null) {
+            closed = constant(model, w.claimed(), c.values());
+            source = "claim";
+        }
+        if (closed != null && closed.isNaN()) {
+            closed = null;
+            source = null;
+        }
+        Double rel = closed == null ? null : closed != 0 ? Math.abs(numeric - closed) / Math.abs(closed)
+                : numeric == 0 ? 0.0 : null;
+        String unit = UnitCatalog.siName(model.dimensionOf(w.expr()));
+        double factor = 1.0;
+        if (w.shownUnit() != null) {
+            try {
+                factor = UnitParser.parse(w.shownUnit()).factor();
+            } catch (UnitException ex) {
+                notes.add("cannot show " + key + " in [" + w.shownUnit() + "]: " + ex.getMessage());
+            }
+        }
+        return new QuantityRow(key, unit, closed, numeric, rel, error, w.shownUnit(), factor, source);
+    }
+
+    private static Check expect(Model model, dev.plumb.model.CaseValues c, Stmt.Expect e, Solution solution, Solution tight) {
+        String label = label(e);
+        double value;
+        try {
+            value = solution.evaluate(e.lhs());
+        } catch (SolveException ex) {
+            return Check.of("expect", label, e.span(), Status.FAILS, ExprPrinter.print(e.lhs()) + " could not be evaluated in case '"
+                    + c.label() + "': " + ex.getMessage());
+        }
+        Double expected = constant(model, e.expected(), c.values());
+        if (expected == null || expected.isNaN()) {
+            return Check.of("expect", label, e.span(), Status.FAILS, "the expected value is not a fixed number");
+        }
+        double allowed;
+        String tolText;
+        if (e.tolerance().isRelative()) {
+            allowed = e.tolerance().relative() * Math.abs(expected);
+            tolText = String.format("%.3g relative", e.tolerance().relative());
+        } else {
+            Double abs = constant(model, e.tolerance().absolute(), c.values());
+            allowed = abs == null ? Double.NaN : Math.abs(abs);
+            tolText = String.format("%.6g", allowed) + " SI";
+        }
+        double diff = Math.abs(value - expected);
+        double rel = expected != 0 ? diff / Math.abs(expected) : diff;
+        Status status = diff <= allowed ? Status.HOLDS : Status.FAILS;
+        String unit = UnitCatalog.siName(model.dimensionOf(e.lhs()));
+        String message = String.format("%s at %s: numeric %.10g %s, expected %.10g %s, relative difference %.3g (allowed %s)",
+                ExprPrinter.print(e.lhs()), c.label(), value, unit, expected, unit, rel, tolText);
+        Check check = Check.of("expect", label, e.span(), status, message)
+                .with("case", c.label()).with("numeric", value).with("expected", expected).with("rel_diff", rel).with("unit", unit);
+        if (tight != null) {
+            try {
+                check = check.with("error_estimate", Math.abs(tight.evaluate(e.lhs()) - value));
+            } catch (SolveException ignored) {
+                // No estimate; the check itself stands.
+            }
+        }
+        return check;
+    }
+
+    private static String label(Stmt.Expect e) {
+        return e.label().present() ? e.label().name() : "line " + e.span().line();
+    }
+
+    private static Double constant(Model model, Expr e, Map<String, Double> values) {
+        try {
+            return new ConstantEvaluator(n -> model.symbols().get(n), values).evaluate(e);
+        } catch (ConstantEvaluator.NotConstant ex) {
+            return Double.NaN;
+        }
+    }
+
+    private static String where(Model model, Span span) {
+        if (span == null || span.line() < 1) return model.source().path() + ": ";
+        return model.source().path() + ":" + span.line() + ":" + span.column() + ": ";
+    }
+}

@@ -1,0 +1,209 @@
+package dev.plumb.numeric;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.LUDecomposition;
+import org.apache.commons.math3.linear.RealVector;
+
+/**
+ * Finds the unknown start values and constants of a case so that every boundary holds: damped
+ * Newton on the mismatches, with a finite-difference Jacobian, unknowns that start positive
+ * moved in log space, and conditions with a positive target measured as log ratios. For
+ * homologous problems (a polytrope of given mass and radius) both are power laws of the
+ * unknowns, so the mismatches are nearly linear in these coordinates and Newton converges from
+ * a dimensional estimate without tuning.
+ */
+final class Shooting {
+
+    /** The converged trajectory, the unknowns and how many Newton steps it took. */
+    record Result(Trajectory trajectory, double[] z, int iterations, double mismatch) { }
+
+    private static final int MAX_ITERATIONS = 60;
+
+    private Shooting() {
+    }
+
+    static Result solve(CaseProblem p) throws SolveException {
+        double[] z = p.initialVector();
+        if (p.unknowns.isEmpty()) {
+            return new Result(p.integrate(z), z, 0, 0.0);
+        }
+        double tol = Math.max(p.options.relTol(), 1e-14);
+        Trajectory t;
+        double[] f;
+        try {
+            t = p.integrate(z);
+            f = mismatch(p, t);
+        } catch (SolveException first) {
+            double[] rescued = rescue(p, z);
+            if (rescued == null) {
+                throw new SolveException(first.span(), "the shooting could not start from its first guess (" + guessText(p)
+                        + "), nor from " + RESCUE_TRIALS + " guesses up to a factor 1e6 away in every direction: " + first.getMessage());
+            }
+            z = rescued;
+            t = p.integrate(z);
+            f = mismatch(p, t);
+        }
+        double norm = norm(f);
+        List<String> history = new ArrayList<>();
+        for (int it = 0; it < MAX_ITERATIONS; it++) {
+            if (norm <= tol) return new Result(t, z, it, norm);
+            double[][] jac = jacobian(p, z, f);
+            RealVector dz;
+            try {
+                LUDecomposition lu = new LUDecomposition(new Array2DRowRealMatrix(jac, false), 1e-14);
+                dz = lu.getSolver().solve(new ArrayRealVector(f, false)).mapMultiply(-1);
+            } catch (RuntimeException singular) {
+                throw new SolveException(p.form.coordinate.span(), "the boundaries do not fix " + names(p)
+                        + ": the mismatches do not change independently with them (singular Jacobian at " + p.describeUnknowns(z) + ")");
+            }
+            // Keep one step within a factor e^4 in log coordinates, so a poor guess cannot throw the next trial far off.
+            double biggest = dz.getLInfNorm();
+            double lambda = biggest > 4 ? 4 / biggest : 1.0;
+            boolean accepted = false;
+            String lastFailure = null;
+            for (int half = 0; half < 30; half++, lambda /= 2) {
+                double[] trial = z.clone();
+                for (int k = 0; k < trial.length; k++) trial[k] += lambda * dz.getEntry(k);
+                try {
+                    Trajectory tt = p.integrate(trial);
+                    double[] ft = mismatch(p, tt);
+                    double nt = norm(ft);
+                    if (nt < (1 - 1e-4 * lambda) * norm || nt <= tol) {
+                        z = trial;
+                        t = tt;
+                        f = ft;
+                        norm = nt;
+                        accepted = true;
+                        break;
+                    }
+                } catch (SolveException failed) {
+                    lastFailure = failed.getMessage();
+                }
+            }
+            history.add(String.format("%.3g", norm));
+            if (!accepted) {
+                // Near the integration's own noise no step can reduce the mismatch further: that is convergence.
+                if (norm <= 1e3 * tol) return new Result(t, z, it + 1, norm);
+                throw new SolveException(p.form.coordinate.span(), "the shooting on " + names(p) + " did not converge: after "
+                        + (it + 1) + " damped Newton step(s) no step reduced the mismatch " + String.format("%.3g", norm)
+                        + " (mismatches by step: " + String.join(", ", history) + "); last trial " + p.describeUnknowns(z)
+                        + "; started from " + guessText(p) + (lastFailure == null ? "" : "; a trial failed: " + lastFailure));
+            }
+        }
+        if (norm <= 1e3 * tol) return new Result(t, z, MAX_ITERATIONS, norm);
+        throw new SolveException(p.form.coordinate.span(), "the shooting on " + names(p) + " did not converge in "
+                + MAX_ITERATIONS + " Newton steps (mismatch " + String.format("%.3g", norm) + " at " + p.describeUnknowns(z)
+                + "; started from " + guessText(p) + ")");
+    }
+
+    private static final int RESCUE_TRIALS = 6;
+
+    /**
+     * When the first guess gives no usable trajectory (the surface beyond reach, a non-finite value),
+     * tries guesses further and further away along each unknown and each pair, in log coordinates, and
+     * returns the first that does; null when none does.
+     */
+    private static double[] rescue(CaseProblem p, double[] z0) {
+        int n = z0.length;
+        List<double[]> directions = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            for (int si = -1; si <= 1; si += 2) {
+                double[] d = new double[n];
+                d[i] = si;
+                directions.add(d);
+                for (int j = i + 1; j < n; j++) {
+                    for (int sj = -1; sj <= 1; sj += 2) {
+                        double[] e = d.clone();
+                        e[j] = sj;
+                        directions.add(e);
+                    }
+                }
+            }
+        }
+        for (int k = 1; k <= RESCUE_TRIALS; k++) {
+            double step = k * Math.log(10.0);
+            for (double[] d : directions) {
+                double[] z = z0.clone();
+                for (int i = 0; i < n; i++) z[i] += (p.unknowns.get(i).log() ? step : Math.pow(10, k)) * d[i];
+                try {
+                    mismatch(p, p.integrate(z));
+                    return z;
+                } catch (SolveException tryFurther) {
+                    // Keep widening the search.
+                }
+            }
+        }
+        return null;
+    }
+
+    static String names(CaseProblem p) {
+        return String.join(", ", p.unknowns.stream().map(CaseProblem.Unknown::name).toList());
+    }
+
+    private static String guessText(CaseProblem p) {
+        List<String> parts = new ArrayList<>();
+        for (CaseProblem.Unknown u : p.unknowns) parts.add(u.name() + " = " + String.format("%.6g", u.guess()) + " (" + u.guessSource() + ")");
+        return String.join(", ", parts);
+    }
+
+    private static double norm(double[] f) {
+        double n = 0;
+        for (double v : f) n = Math.max(n, Math.abs(v));
+        return Double.isNaN(n) ? Double.POSITIVE_INFINITY : n;
+    }
+
+    private static double[][] jacobian(CaseProblem p, double[] z, double[] f) throws SolveException {
+        int n = z.length;
+        double[][] jac = new double[f.length][n];
+        for (int k = 0; k < n; k++) {
+            double h = 1e-6 * Math.max(1.0, Math.abs(z[k]) * (p.unknowns.get(k).log() ? 0 : 1));
+            double[] zp = z.clone();
+            zp[k] += h;
+            double[] fp;
+            try {
+                fp = mismatch(p, p.integrate(zp));
+            } catch (SolveException forwardFailed) {
+                zp[k] = z[k] - h;
+                fp = mismatch(p, p.integrate(zp));
+                h = -h;
+            }
+            for (int i = 0; i < f.length; i++) jac[i][k] = (fp[i] - f[i]) / h;
+        }
+        return jac;
+    }
+
+    /** Each condition's mismatch for a trajectory; the surface of a fixed interval counts first. */
+    static double[] mismatch(CaseProblem p, Trajectory t) throws SolveException {
+        int extra = p.fixedSurface ? 1 : 0;
+        double[] f = new double[p.conditions.size() + extra];
+        if (p.fixedSurface) f[0] = Math.log((t.surfaceX - p.a) / (p.b - p.a));
+        PointEvaluator ev = new PointEvaluator(p.form, p.values, t);
+        for (int i = 0; i < p.conditions.size(); i++) {
+            CaseProblem.Condition c = p.conditions.get(i);
+            double l = ev.evaluate(c.boundary().equation().lhs());
+            double r = ev.evaluate(c.boundary().equation().rhs());
+            f[i + extra] = c.log() ? (l > 0 ? Math.log(l / r) : Double.NaN) : (l - r) / c.scale();
+        }
+        for (double v : f) {
+            if (!Double.isFinite(v)) {
+                throw new SolveException(p.form.coordinate.span(), "a boundary mismatch is not finite for " + p.describeUnknowns(
+                        p.initialVector().length == 0 ? new double[0] : reencode(p, t)));
+            }
+        }
+        return f;
+    }
+
+    private static double[] reencode(CaseProblem p, Trajectory t) {
+        double[] z = new double[p.unknowns.size()];
+        double[] y0 = t.states.firstEntry().getValue();
+        for (int k = 0; k < z.length; k++) {
+            CaseProblem.Unknown u = p.unknowns.get(k);
+            double v = u.component() >= 0 ? y0[u.component()] : t.constants[u.constant()];
+            z[k] = u.log() ? Math.log(v) : v / (u.component() >= 0 ? p.scale[u.component()] : 1.0);
+        }
+        return z;
+    }
+}

@@ -1,0 +1,52 @@
+package dev.plumb.numeric;
+
+import dev.plumb.lang.Expr;
+
+/** A case solved by {@link Shooting}: evaluates expressions on its trajectory (one thread at a time). */
+final class SolvedCase implements Solution {
+
+    private final CaseProblem problem;
+    private final Trajectory trajectory;
+    private final String method;
+
+    SolvedCase(CaseProblem problem, Shooting.Result result) {
+        this.problem = problem;
+        this.trajectory = result.trajectory();
+        this.method = describe(problem, result);
+    }
+
+    @Override
+    public synchronized double evaluate(Expr quantity) throws SolveException {
+        return new PointEvaluator(problem.form, problem.values, trajectory).evaluate(quantity);
+    }
+
+    @Override
+    public String method() {
+        return method;
+    }
+
+    private static String describe(CaseProblem p, Shooting.Result r) {
+        StringBuilder sb = new StringBuilder(Integration.METHOD);
+        sb.append(String.format(", rtol %.0e, atol %.0e of each component's scale", p.options.relTol(), p.options.absTolScale()));
+        sb.append("; ").append(r.trajectory().startNote);
+        if (p.integration.breaks.length > 0) {
+            sb.append("; restarted at ").append(p.integration.breaks.length).append(" break(s) of a piecewise relation (")
+                    .append(p.form.coordinate.name()).append(" = ");
+            for (int i = 0; i < p.integration.breaks.length; i++) {
+                if (i > 0) sb.append(", ");
+                sb.append(String.format("%.9g", p.integration.breaks[i]));
+            }
+            sb.append(")");
+        }
+        if (p.surface != null) {
+            sb.append("; surface ").append(p.surface.description()).append(" = ").append(SeriesStart.trim(p.surface.value()))
+                    .append(" found at ").append(p.form.coordinate.name()).append(" = ")
+                    .append(String.format("%.12g", r.trajectory().surfaceX)).append(" by event detection");
+        }
+        if (!p.unknowns.isEmpty()) {
+            sb.append("; shooting on ").append(Shooting.names(p)).append(": ").append(r.iterations())
+                    .append(" damped Newton step(s), mismatch ").append(String.format("%.1e", r.mismatch()));
+        }
+        return sb.toString();
+    }
+}
