@@ -21,6 +21,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import dev.plumb.lang.Expr;
+import dev.plumb.numeric.CaseResult;
+import dev.plumb.numeric.NumericEngine;
+import dev.plumb.numeric.NumericOptions;
+import dev.plumb.numeric.NumericResult;
 import dev.plumb.scaling.ScaleLength;
 import dev.plumb.symbolic.Derived;
 import dev.plumb.symbolic.SymbolicEngine;
@@ -34,9 +38,9 @@ import dev.plumb.scaling.ScalingChecker;
 public final class Analyzer {
 
     /** Options shared by every command that analyses files. */
-    public record Options(double symbolicTimeoutSeconds) {
+    public record Options(double symbolicTimeoutSeconds, boolean profiles) {
         public static Options defaults() {
-            return new Options(5.0);
+            return new Options(5.0, false);
         }
     }
 
@@ -68,6 +72,7 @@ public final class Analyzer {
         List<String> notes = new ArrayList<>();
         List<Analysis.DerivedForm> derived = new ArrayList<>();
         List<String> scales = List.of();
+        List<Analysis.CaseTable> tables = new ArrayList<>();
         if (!diagnostics.hasInputErrors()) {
             SymbolicResult symbolic = SymbolicEngine.analyze(model, new SymbolicOptions(options.symbolicTimeoutSeconds()));
             checks.addAll(symbolic.checks());
@@ -78,21 +83,15 @@ public final class Analyzer {
                 derived.add(new Analysis.DerivedForm(d.expr(), d.printed(), UnitCatalog.siName(d.dimension()), d.closedForm(),
                         d.trail().stream().map(t -> new Analysis.TrailEntry(t.action(), t.result())).toList()));
             }
-            pending(model, checks);
-            checks.addAll(new ScalingChecker(model, closedForms, e -> Optional.empty()).checkAll());
+            CaseAnalysis cases = new CaseAnalysis(model, closedForms, notes);
+            NumericResult numeric = NumericEngine.run(model, closedForms, NumericOptions.defaults());
+            checks.addAll(numeric.checks());
+            notes.addAll(numeric.notes());
+            for (CaseResult c : numeric.cases()) tables.add(cases.table(c, options.profiles()));
+            checks.addAll(new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
             scales = ScaleLength.find(model).stream().map(ScaleLength::describe).toList();
         }
-        return new Analysis(source, model, model.diagnostics(), checks, derived, List.of(), scales, notes);
-    }
-
-    /** Checks that later stages decide, reported plainly as not evaluated rather than as holding. */
-    private static void pending(Model model, List<Check> checks) {
-        for (Stmt.Expect e : model.expects()) checks.add(notEvaluated("expect", e.label(), e.span()));
-    }
-
-    private static Check notEvaluated(String kind, Stmt.Label label, Span span) {
-        return Check.of(kind, label.present() ? label.name() : "line " + span.line(), span, Status.NOT_EVALUATED,
-                "not evaluated: the numeric engine is not in this build yet");
+        return new Analysis(source, model, model.diagnostics(), checks, derived, tables, scales, notes);
     }
 
     private static Analysis unreadable(Path path, String why) {

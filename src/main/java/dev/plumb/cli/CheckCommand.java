@@ -48,7 +48,7 @@ public final class CheckCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         SymbolicEngine.warmUp();
-        Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout));
+        Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout, false));
         List<Analysis> results = new ArrayList<>();
         int status = 0;
         for (Path f : files) {
