@@ -56,13 +56,18 @@ public final class ScalingChecker {
 
     /** The dimensional inputs a quantity can depend on: free and dimensional fixed parameters, constants. */
     public Map<String, Dimension> inputs(Expr quantity) {
-        Set<String> names = new LinkedHashSet<>();
-        for (Stmt s : model.program().statements()) {
-            if (s instanceof Stmt.Relation || s instanceof Stmt.Boundary || s instanceof Stmt.Let || s instanceof Stmt.Coord) {
-                names.addAll(References.names(s));
+        // A quantity that needs no solving depends only on what it mentions (through definitions);
+        // a profile value or an unknown constant depends on everything the relations and boundaries mention.
+        Set<String> names = transitive(References.names(quantity));
+        boolean solved = names.stream().anyMatch(n -> model.symbol(n).orElse(null) instanceof Symbol.Profile
+                || model.symbol(n).orElse(null) instanceof Symbol.UnknownConstant);
+        if (solved) {
+            for (Stmt s : model.program().statements()) {
+                if (s instanceof Stmt.Relation || s instanceof Stmt.Boundary || s instanceof Stmt.Let || s instanceof Stmt.Coord) {
+                    names.addAll(References.names(s));
+                }
             }
         }
-        names.addAll(References.names(quantity));
         // Constants first, then fixed and free parameters: monomials then read as G*M^2*R^(-4).
         Map<String, Dimension> out = new LinkedHashMap<>();
         for (Symbol s : model.symbols(Symbol.Builtin.class)) {
@@ -71,7 +76,20 @@ public final class ScalingChecker {
         for (Symbol s : model.symbols(Symbol.FixedParam.class)) {
             if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
         }
-        for (Symbol.FreeParam p : model.freeParams()) out.put(p.name(), p.dimension());
+        for (Symbol.FreeParam p : model.freeParams()) {
+            if (names.contains(p.name())) out.put(p.name(), p.dimension());
+        }
+        return out;
+    }
+
+    private Set<String> transitive(Set<String> start) {
+        Set<String> out = new LinkedHashSet<>();
+        java.util.ArrayDeque<String> todo = new java.util.ArrayDeque<>(start);
+        while (!todo.isEmpty()) {
+            String n = todo.pop();
+            if (!out.add(n)) continue;
+            if (model.symbol(n).orElse(null) instanceof Symbol.Definition d) todo.addAll(References.names(d.body()));
+        }
         return out;
     }
 
