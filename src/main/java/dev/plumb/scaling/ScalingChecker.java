@@ -155,7 +155,8 @@ public final class ScalingChecker {
             case FAILS -> String.join("; ", differences) + " (" + String.join("; ", routes) + ")";
             default -> "no route decided (" + String.join("; ", routes) + ")";
         };
-        Check c = Check.of("scaling", label, s.span(), status, message).with("claimed", toObjects(want)).with("routes", routes)
+        Check c = Check.of("scaling", label, s.span(), status, message).with("claimed", exactOnFree(claimed.get(), free))
+                .with("routes", routes)
                 .with("dimensional_analysis", da.describe(ExprPrinter.print(s.lhs())));
         return found == null ? c : c.with("exponents", found);
     }
@@ -176,19 +177,18 @@ public final class ScalingChecker {
         return out;
     }
 
+    /** Every name with a non-zero exponent (constants such as G included), and every free parameter. */
     private static Map<String, Object> exactOnFree(Map<String, Rational> e, List<String> free) {
         Map<String, Object> out = new LinkedHashMap<>();
-        for (String p : free) {
-            Rational r = e.getOrDefault(p, Rational.ZERO);
-            out.put(p, r.isInteger() ? (Object) r.num() : (Object) r.toDouble());
-        }
+        e.forEach((name, r) -> {
+            if (!r.isZero()) out.put(name, number(r));
+        });
+        for (String p : free) out.putIfAbsent(p, 0L);
         return out;
     }
 
-    private static Map<String, Object> toObjects(Map<String, Double> m) {
-        Map<String, Object> out = new LinkedHashMap<>();
-        m.forEach((k, v) -> out.put(k, v == Math.rint(v) ? (Object) (long) (double) v : (Object) v));
-        return out;
+    private static Object number(Rational r) {
+        return r.isInteger() ? (Object) r.num() : (Object) r.toDouble();
     }
 
     private static void compare(String route, Map<String, Object> found, Map<String, Double> want, double tol,
