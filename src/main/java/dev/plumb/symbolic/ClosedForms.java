@@ -117,54 +117,38 @@ final class ClosedForms {
             closed = sol;
             trail.add(new TrailStep("solve for " + px, px + " = " + print(closed)));
         } else {
-            IExpr g = unique(symja.eval(F.Solve(F.Equal(replaced, F.C0), yp)), yp);
-            if (g == null) return false;
             String dpx = p + "'(" + table.name(x) + ")";
             Boundary b = boundaryFor(p);
             if (b == null) {
                 notes.add("no boundary condition at a known point fixes the constant of integration of " + px);
                 return false;
             }
-            if (!g.has(y, true)) {
-                trail.add(new TrailStep("solve for " + dpx, dpx + " = " + print(g)));
-                IExpr antiderivative = integrate(g);
-                trail.add(new TrailStep("integrate", px + " = " + print(antiderivative) + " + C"));
-                closed = symja.eval(F.Plus(b.value, antiderivative, F.Negate(Points.at(symja, antiderivative, x, b.point))));
+            FirstOrder firstOrder = new FirstOrder(symja, table, assumptions, this);
+            FirstOrder.Relation rel = new FirstOrder.Relation(replaced, y, yp, F.unaryAST1(head, x), px, dpx);
+            FirstOrder.Start start = new FirstOrder.Start(b.label, b.point, b.value);
+            Layers layers = new Layers(symja, table, this, firstOrder);
+            FirstOrder.Solution solution;
+            if (layers.isLayered(replaced)) {
+                var c = table.model().coordinate().get();
+                solution = layers.solve(rel, start, t, symja.eval(t.plain(c.from())), symja.eval(t.plain(c.to())));
             } else {
-                IExpr a = symja.eval(F.Simplify(F.D(g, y)));
-                IExpr rest = symja.eval(F.Simplify(F.ReplaceAll(g, F.Rule(y, F.C0))));
-                if (a.has(y, true)) return false;
-                trail.add(new TrailStep("solve for " + dpx + " (linear in " + px + ")", dpx + " = "
-                        + print(symja.eval(F.ReplaceAll(g, F.Rule(y, F.unaryAST1(head, x)))))));
-                IExpr ia = integrate(a);
-                trail.add(new TrailStep("integrate the coefficient of " + px, print(ia)));
-                IExpr phase = symja.eval(F.Subtract(ia, Points.at(symja, ia, x, b.point)));
-                if (rest.isZero()) {
-                    // exp(k*log(u)) becomes u^k only when the exponential is simplified on its own.
-                    IExpr growth = symja.eval(F.Simplify(F.Exp(ia), assumptions));
-                    closed = symja.eval(F.Times(b.value, F.Divide(growth, Points.at(symja, growth, x, b.point))));
-                } else {
-                    IExpr inner = integrate(symja.eval(F.Times(rest, F.Exp(F.Negate(phase)))));
-                    closed = symja.eval(F.Times(F.Exp(phase),
-                            F.Plus(b.value, inner, F.Negate(Points.at(symja, inner, x, b.point)))));
-                }
-                trail.add(new TrailStep("integrate", px + " = " + print(closed)));
+                solution = firstOrder.solve(rel, start, t);
             }
-            trail.add(new TrailStep("apply boundary " + b.label, px + " = " + print(closed)));
+            if (solution == null) return false;
+            closed = solution.closed();
+            trail.addAll(solution.trail());
             usedBoundaries.add(b.statement);
         }
-        closed = simplify(closed);
-        trail.add(new TrailStep("simplify", px + " = " + print(closed)));
+        boolean layered = closed.has(S.Piecewise, true);
+        // Each layer of a piecewise form was simplified on its own; Simplify on the whole can undo the layering.
+        if (!layered) {
+            closed = simplify(closed);
+            trail.add(new TrailStep("simplify", px + " = " + print(closed)));
+        }
         profiles.put(p, closed);
         trails.put(p, trail);
         usedRelations.add(r);
         return true;
-    }
-
-    private IExpr integrate(IExpr g) {
-        IExpr result = symja.eval(F.Integrate(g, table.coordinate));
-        if (result.has(S.Integrate, true)) throw new Symja.Failure("Symja found no antiderivative", false);
-        return result;
     }
 
     /** The simplest of a few equivalent forms, by how it reads: short, and with few nested fractions. */

@@ -31,6 +31,7 @@ public final class SymbolicEngine {
     }
 
     public static SymbolicResult analyze(Model model, SymbolicOptions options) {
+        Symja.awaitWarm(30);
         Symja symja = new Symja(options.timeoutSeconds());
         SymbolTable table = new SymbolTable(model);
         Translation plain = new Translation(table, symja, Map.of(), Map.of());
