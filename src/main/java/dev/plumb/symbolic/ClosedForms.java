@@ -154,16 +154,18 @@ final class ClosedForms {
     /** The simplest of a few equivalent forms, by how it reads: short, and with few nested fractions. */
     IExpr simplify(IExpr e) {
         IExpr best = symja.eval(F.Simplify(e, assumptions));
+        IExpr reference = best;
         int bestScore = score(best);
         IExpr together = symja.eval(F.Together(best));
-        // FactorTerms pulls the common constant out of a polynomial numerator: 3*G*M^2*(R^2 - r^2).
+        // FactorTerms pulls the common constant out of a polynomial numerator.
         IExpr factoredTerms = F.Times(F.FactorTerms(F.Numerator(together)), F.Power(F.Denominator(together), F.CN1));
         for (IExpr candidate : List.of(together, F.Factor(best), F.Simplify(F.PowerExpand(best), assumptions),
                 F.Together(F.PowerExpand(best)), factoredTerms)) {
             try {
                 IExpr c = symja.eval(candidate);
                 int sc = score(c);
-                if (sc < bestScore) {
+                // PowerExpand holds only for positive bases: a form that reads better must also agree at random points.
+                if (sc < bestScore && equalAtSamples(c, reference)) {
                     best = c;
                     bestScore = sc;
                 }
@@ -172,6 +174,68 @@ final class ClosedForms {
             }
         }
         return best;
+    }
+
+    /**
+     * The form to print, which is not used for further algebra: the simplest form with the
+     * rewrites of {@link Tidy} tried on top, each layer of a piecewise form on its own. A rewrite
+     * is kept as built when Symja's evaluation would undo it (it pulls numbers out of a root).
+     */
+    IExpr neat(IExpr e) {
+        if (e.isAST(S.Piecewise) && e.first().isList()) {
+            IAST cases = (IAST) e.first();
+            List<IExpr> out = new ArrayList<>();
+            for (IExpr c : cases) out.add(c.isList() && ((IAST) c).argSize() == 2 ? F.list(neat(((IAST) c).arg1()), ((IAST) c).arg2()) : c);
+            return ((IAST) e).argSize() > 1 ? F.Piecewise(F.ListAlloc(out), neat(((IAST) e).arg2())) : F.Piecewise(F.ListAlloc(out));
+        }
+        IExpr best;
+        try {
+            best = simplify(e);
+        } catch (Symja.Failure f) {
+            return e;
+        }
+        IExpr reference = best;
+        int bestScore = score(best);
+        Tidy tidy = new Tidy(symja, table.coordinate);
+        List<IExpr> candidates = new ArrayList<>(tidy.candidates(best));
+        try {
+            candidates.addAll(tidy.candidates(symja.eval(F.PowerExpand(best))));
+        } catch (Symja.Failure ignored) {
+            // Fewer candidates.
+        }
+        for (IExpr raw : candidates) {
+            for (int evaluated = 0; evaluated < 2; evaluated++) {
+                try {
+                    IExpr c = evaluated == 0 ? symja.eval(raw) : raw;
+                    int sc = score(c);
+                    if (sc < bestScore && equalAtSamples(c, reference)) {
+                        best = c;
+                        bestScore = sc;
+                    }
+                } catch (Symja.Failure ignored) {
+                    // The form found so far stands.
+                }
+            }
+        }
+        return best;
+    }
+
+    private static final java.math.BigDecimal SAME = new java.math.BigDecimal("1e-30");
+
+    /** Whether the two agree at random points where the original is real (at least two of them). */
+    private boolean equalAtSamples(IExpr candidate, IExpr original) {
+        Sampler sampler = new Sampler(symja, table, 17);
+        Translation t = translation();
+        int real = 0;
+        for (int i = 0; i < 12 && real < 4; i++) {
+            Map<ISymbol, IExpr> p = sampler.point(t);
+            java.math.BigDecimal o = sampler.value(original, p);
+            if (o == null) continue;
+            java.math.BigDecimal c = sampler.value(candidate, p);
+            if (c == null || !Comparison.same(o, c, SAME)) return false;
+            real++;
+        }
+        return real >= 2;
     }
 
     private int score(IExpr e) {
