@@ -227,7 +227,7 @@ final class ClosedForms {
         Sampler sampler = new Sampler(symja, table, 17);
         Translation t = translation();
         int real = 0;
-        for (int i = 0; i < 12 && real < 4; i++) {
+        for (int i = 0; i < 40 && real < 4; i++) {
             Map<ISymbol, IExpr> p = sampler.point(t);
             java.math.BigDecimal o = sampler.value(original, p);
             if (o == null) continue;
