@@ -77,4 +77,27 @@ class StandardAtmosphereLayersTest {
         String printed = Fixtures.derived(result, "p(h)").printed();
         assertTrue(printed.startsWith("if h < 11000 then 101325*(1 - L*h/T0)^("), printed);
     }
+
+    @Test
+    void threeNestedLayersFromABoundaryInTheMiddleOneWorkOutwardBothWays() {
+        String file = """
+                param g0 = 9.80665 [m/s^2]
+                param M0 = 0.0289644 [kg/mol]
+                param Rstar = 8.31432 [J/(mol K)]
+                coord z [m] from 0 to 32 [km]
+                let T(z) = if z < 11 [km] then 288.15 [K] - 6.5 [K/km]*z else if z < 20 [km] then 216.65 [K] else 216.65 [K] + 1 [K/km]*(z - 20 [km])
+                unknown P(z) [Pa]
+                relation hydrostatic: P'(z) = -P(z)*M0*g0/(Rstar*T(z))
+                boundary middle: P(20 [km]) = 5474.889 [Pa]
+                show P(0)
+                show P(32 [km])
+                """;
+        Model m = Fixtures.model("three-layers.plumb", file);
+        SymbolicResult r = Fixtures.analyze(m);
+        double ground = ConstantEvaluatorSupport.evaluate(m, Fixtures.derived(r, "P(0)").closedForm(), Map.of());
+        double top = ConstantEvaluatorSupport.evaluate(m, Fixtures.derived(r, "P(32 [km])").closedForm(), Map.of());
+        // U.S. Standard Atmosphere, 1976: 101325 Pa at 0 km; 868.0187 Pa at 32 km (layer-base table; value from memory).
+        assertEquals(0, (ground - 101325) / 101325, 1e-6);
+        assertEquals(0, (top - 868.0187) / 868.0187, 1e-6);
+    }
 }
