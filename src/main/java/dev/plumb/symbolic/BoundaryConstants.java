@@ -51,7 +51,7 @@ final class BoundaryConstants {
                 Optional<IExpr> root = symbolicRoot(eq, ks, t);
                 String how = "solve boundary " + label + " for " + k;
                 if (root.isEmpty()) {
-                    root = numericRoot(eq, ks);
+                    root = numericRoot(eq, ks, t);
                     how = "first root of boundary " + label + " in " + k + ", found numerically and identified exactly";
                 }
                 if (root.isEmpty()) {
@@ -83,36 +83,65 @@ final class BoundaryConstants {
         for (IExpr s : (IAST) solutions) {
             if (!s.isList() || ((IAST) s).argSize() != 1 || !((IAST) s).arg1().isRuleAST()) continue;
             IExpr candidate = ((IAST) s).arg1().second();
-            if (satisfies(eq, k, candidate, positive)) return Optional.of(candidate);
+            if (satisfies(eq, k, candidate, positive, t)) return Optional.of(candidate);
         }
         return Optional.empty();
     }
 
-    private boolean satisfies(IExpr eq, ISymbol k, IExpr candidate, boolean positive) {
+    /**
+     * Whether the root meets the boundary (simplifying to 0, or failing that 0 to 60 digits at
+     * random points) and, for the end of the interval, lies beyond its start at each of them.
+     */
+    private boolean satisfies(IExpr eq, ISymbol k, IExpr candidate, boolean endOfInterval, Translation t) {
         IExpr at = symja.eval(F.ReplaceAll(eq, F.Rule(k, candidate)));
         if (Points.isSingular(at)) return false;
-        IExpr zero = closedForms.simplify(at);
-        if (!zero.isZero()) return false;
-        if (!positive) return true;
-        BigDecimal v = Sampler.decimal(symja.eval(F.N(candidate, F.ZZ(Sampler.DIGITS))));
-        return v == null ? candidate.isFree(x -> x.isSymbol() && table.name((ISymbol) x) != null, true) : v.signum() > 0;
+        boolean symbolicZero = closedForms.simplify(at).isZero();
+        Sampler sampler = new Sampler(symja, table, 5);
+        IExpr start = start(t);
+        int real = 0;
+        for (int i = 0; i < 16 && real < 4; i++) {
+            Map<ISymbol, IExpr> p = sampler.point(t);
+            BigDecimal v = sampler.value(candidate, p);
+            BigDecimal residual = sampler.value(at, p);
+            BigDecimal scale = sampler.value(F.ReplaceAll(F.Abs(eq), F.Rule(k, F.C1)), p);
+            if (v == null || residual == null) continue;
+            if (!symbolicZero && (scale == null || residual.abs().compareTo(scale.abs().add(BigDecimal.ONE).multiply(ZERO)) > 0)) {
+                return false;
+            }
+            if (endOfInterval) {
+                BigDecimal from = start == null ? BigDecimal.ZERO : sampler.value(start, p);
+                if (from == null || v.compareTo(from) <= 0) return false;
+            }
+            real++;
+        }
+        return real >= 2;
     }
 
-    private Optional<IExpr> numericRoot(IExpr eq, ISymbol k) {
+    private static final BigDecimal ZERO = new BigDecimal("1e-40");
+
+    private IExpr start(Translation t) {
+        try {
+            return table.model().coordinate().isPresent() ? symja.eval(t.plain(table.model().coordinate().get().from())) : null;
+        } catch (Translation.Untranslatable | Symja.Failure e) {
+            return null;
+        }
+    }
+
+    private Optional<IExpr> numericRoot(IExpr eq, ISymbol k, Translation t) {
         if (!eq.isFree(x -> x.isSymbol() && x != k && table.name((ISymbol) x) != null, true)) return Optional.empty();
         double step = 0.01;
         double a = 1e-6;
         Double fa = value(eq, k, a);
         for (double b = a + step; b < 100; b += step) {
             Double fb = value(eq, k, b);
-            if (fa != null && fb != null && Math.signum(fa) != Math.signum(fb)) return refine(eq, k, a, b);
+            if (fa != null && fb != null && Math.signum(fa) != Math.signum(fb)) return refine(eq, k, a, b, t);
             a = b;
             fa = fb;
         }
         return Optional.empty();
     }
 
-    private Optional<IExpr> refine(IExpr eq, ISymbol k, double lo, double hi) {
+    private Optional<IExpr> refine(IExpr eq, ISymbol k, double lo, double hi, Translation t) {
         Double flo = value(eq, k, lo);
         for (int i = 0; i < 60 && flo != null; i++) {
             double mid = 0.5 * (lo + hi);
@@ -127,7 +156,7 @@ final class BoundaryConstants {
         }
         Optional<IExpr> exact = ExactNumber.identify(new BigDecimal(0.5 * (lo + hi)).round(new java.math.MathContext(15)), symja,
                 new BigDecimal("1e-12"));
-        return exact.filter(e -> satisfies(eq, k, e, true));
+        return exact.filter(e -> satisfies(eq, k, e, true, t));
     }
 
     private Double value(IExpr eq, ISymbol k, double at) {

@@ -117,69 +117,55 @@ final class ClosedForms {
             closed = sol;
             trail.add(new TrailStep("solve for " + px, px + " = " + print(closed)));
         } else {
-            IExpr g = unique(symja.eval(F.Solve(F.Equal(replaced, F.C0), yp)), yp);
-            if (g == null) return false;
             String dpx = p + "'(" + table.name(x) + ")";
             Boundary b = boundaryFor(p);
             if (b == null) {
                 notes.add("no boundary condition at a known point fixes the constant of integration of " + px);
                 return false;
             }
-            if (!g.has(y, true)) {
-                trail.add(new TrailStep("solve for " + dpx, dpx + " = " + print(g)));
-                IExpr antiderivative = integrate(g);
-                trail.add(new TrailStep("integrate", px + " = " + print(antiderivative) + " + C"));
-                closed = symja.eval(F.Plus(b.value, antiderivative, F.Negate(Points.at(symja, antiderivative, x, b.point))));
+            FirstOrder firstOrder = new FirstOrder(symja, table, assumptions, this);
+            FirstOrder.Relation rel = new FirstOrder.Relation(replaced, y, yp, F.unaryAST1(head, x), px, dpx);
+            FirstOrder.Start start = new FirstOrder.Start(b.label, b.point, b.value);
+            Layers layers = new Layers(symja, table, this, firstOrder);
+            FirstOrder.Solution solution;
+            if (layers.isLayered(replaced)) {
+                var c = table.model().coordinate().get();
+                solution = layers.solve(rel, start, t, symja.eval(t.plain(c.from())), symja.eval(t.plain(c.to())));
             } else {
-                IExpr a = symja.eval(F.Simplify(F.D(g, y)));
-                IExpr rest = symja.eval(F.Simplify(F.ReplaceAll(g, F.Rule(y, F.C0))));
-                if (a.has(y, true)) return false;
-                trail.add(new TrailStep("solve for " + dpx + " (linear in " + px + ")", dpx + " = "
-                        + print(symja.eval(F.ReplaceAll(g, F.Rule(y, F.unaryAST1(head, x)))))));
-                IExpr ia = integrate(a);
-                trail.add(new TrailStep("integrate the coefficient of " + px, print(ia)));
-                IExpr phase = symja.eval(F.Subtract(ia, Points.at(symja, ia, x, b.point)));
-                if (rest.isZero()) {
-                    // exp(k*log(u)) becomes u^k only when the exponential is simplified on its own.
-                    IExpr growth = symja.eval(F.Simplify(F.Exp(ia), assumptions));
-                    closed = symja.eval(F.Times(b.value, F.Divide(growth, Points.at(symja, growth, x, b.point))));
-                } else {
-                    IExpr inner = integrate(symja.eval(F.Times(rest, F.Exp(F.Negate(phase)))));
-                    closed = symja.eval(F.Times(F.Exp(phase),
-                            F.Plus(b.value, inner, F.Negate(Points.at(symja, inner, x, b.point)))));
-                }
-                trail.add(new TrailStep("integrate", px + " = " + print(closed)));
+                solution = firstOrder.solve(rel, start, t);
             }
-            trail.add(new TrailStep("apply boundary " + b.label, px + " = " + print(closed)));
+            if (solution == null) return false;
+            closed = solution.closed();
+            trail.addAll(solution.trail());
             usedBoundaries.add(b.statement);
         }
-        closed = simplify(closed);
-        trail.add(new TrailStep("simplify", px + " = " + print(closed)));
+        boolean layered = closed.has(S.Piecewise, true);
+        // Each layer of a piecewise form was simplified on its own; Simplify on the whole can undo the layering.
+        if (!layered) {
+            closed = simplify(closed);
+            trail.add(new TrailStep("simplify", px + " = " + print(closed)));
+        }
         profiles.put(p, closed);
         trails.put(p, trail);
         usedRelations.add(r);
         return true;
     }
 
-    private IExpr integrate(IExpr g) {
-        IExpr result = symja.eval(F.Integrate(g, table.coordinate));
-        if (result.has(S.Integrate, true)) throw new Symja.Failure("Symja found no antiderivative", false);
-        return result;
-    }
-
     /** The simplest of a few equivalent forms, by how it reads: short, and with few nested fractions. */
     IExpr simplify(IExpr e) {
         IExpr best = symja.eval(F.Simplify(e, assumptions));
+        IExpr reference = best;
         int bestScore = score(best);
         IExpr together = symja.eval(F.Together(best));
-        // FactorTerms pulls the common constant out of a polynomial numerator: 3*G*M^2*(R^2 - r^2).
+        // FactorTerms pulls the common constant out of a polynomial numerator.
         IExpr factoredTerms = F.Times(F.FactorTerms(F.Numerator(together)), F.Power(F.Denominator(together), F.CN1));
         for (IExpr candidate : List.of(together, F.Factor(best), F.Simplify(F.PowerExpand(best), assumptions),
                 F.Together(F.PowerExpand(best)), factoredTerms)) {
             try {
                 IExpr c = symja.eval(candidate);
                 int sc = score(c);
-                if (sc < bestScore) {
+                // PowerExpand holds only for positive bases: a form that reads better must also agree at random points.
+                if (sc < bestScore && equalAtSamples(c, reference)) {
                     best = c;
                     bestScore = sc;
                 }
@@ -188,6 +174,68 @@ final class ClosedForms {
             }
         }
         return best;
+    }
+
+    /**
+     * The form to print, which is not used for further algebra: the simplest form with the
+     * rewrites of {@link Tidy} tried on top, each layer of a piecewise form on its own. A rewrite
+     * is kept as built when Symja's evaluation would undo it (it pulls numbers out of a root).
+     */
+    IExpr neat(IExpr e) {
+        if (e.isAST(S.Piecewise) && e.first().isList()) {
+            IAST cases = (IAST) e.first();
+            List<IExpr> out = new ArrayList<>();
+            for (IExpr c : cases) out.add(c.isList() && ((IAST) c).argSize() == 2 ? F.list(neat(((IAST) c).arg1()), ((IAST) c).arg2()) : c);
+            return ((IAST) e).argSize() > 1 ? F.Piecewise(F.ListAlloc(out), neat(((IAST) e).arg2())) : F.Piecewise(F.ListAlloc(out));
+        }
+        IExpr best;
+        try {
+            best = simplify(e);
+        } catch (Symja.Failure f) {
+            return e;
+        }
+        IExpr reference = best;
+        int bestScore = score(best);
+        Tidy tidy = new Tidy(symja, table.coordinate);
+        List<IExpr> candidates = new ArrayList<>(tidy.candidates(best));
+        try {
+            candidates.addAll(tidy.candidates(symja.eval(F.PowerExpand(best))));
+        } catch (Symja.Failure ignored) {
+            // Fewer candidates.
+        }
+        for (IExpr raw : candidates) {
+            for (int evaluated = 0; evaluated < 2; evaluated++) {
+                try {
+                    IExpr c = evaluated == 0 ? symja.eval(raw) : raw;
+                    int sc = score(c);
+                    if (sc < bestScore && equalAtSamples(c, reference)) {
+                        best = c;
+                        bestScore = sc;
+                    }
+                } catch (Symja.Failure ignored) {
+                    // The form found so far stands.
+                }
+            }
+        }
+        return best;
+    }
+
+    private static final java.math.BigDecimal SAME = new java.math.BigDecimal("1e-30");
+
+    /** Whether the two agree at random points where the original is real (at least two of them). */
+    private boolean equalAtSamples(IExpr candidate, IExpr original) {
+        Sampler sampler = new Sampler(symja, table, 17);
+        Translation t = translation();
+        int real = 0;
+        for (int i = 0; i < 40 && real < 4; i++) {
+            Map<ISymbol, IExpr> p = sampler.point(t);
+            java.math.BigDecimal o = sampler.value(original, p);
+            if (o == null) continue;
+            java.math.BigDecimal c = sampler.value(candidate, p);
+            if (c == null || !Comparison.same(o, c, SAME)) return false;
+            real++;
+        }
+        return real >= 2;
     }
 
     private int score(IExpr e) {

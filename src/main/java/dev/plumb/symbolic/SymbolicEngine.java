@@ -31,6 +31,7 @@ public final class SymbolicEngine {
     }
 
     public static SymbolicResult analyze(Model model, SymbolicOptions options) {
+        Symja.awaitWarm(30);
         Symja symja = new Symja(options.timeoutSeconds());
         SymbolTable table = new SymbolTable(model);
         Translation plain = new Translation(table, symja, Map.of(), Map.of());
@@ -49,13 +50,13 @@ public final class SymbolicEngine {
         Map<String, Expr> constantForms = new LinkedHashMap<>();
         String x = model.coordinate().map(Symbol::name).orElse("x");
         found.profiles().forEach((name, closed) -> {
-            Expr e = plumb(form, closed, notes, name);
+            Expr e = plumb(form, closedForms.neat(closed), notes, name);
             if (e == null) return;
             profiles.put(name, e);
             derived.add(new Derived(name + "(" + x + ")", e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
         });
         constants.forEach((name, closed) -> {
-            Expr e = plumb(form, closed, notes, name);
+            Expr e = plumb(form, closedForms.neat(closed), notes, name);
             if (e == null) return;
             constantForms.put(name, e);
             derived.add(new Derived(name, e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
@@ -103,7 +104,7 @@ public final class SymbolicEngine {
             try {
                 IExpr value = symja.eval(t.plain(c));
                 if (t.mentionsUnknownProfile(value) || !t.unknownConstantsIn(value).isEmpty()) continue;
-                IExpr simple = closedForms.simplify(value);
+                IExpr simple = closedForms.neat(value);
                 Expr e = form.readable(simple);
                 Dimension d = model.dimensionOf(c);
                 List<TrailStep> trail = List.of(

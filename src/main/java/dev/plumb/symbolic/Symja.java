@@ -73,6 +73,20 @@ final class Symja {
         warmer.start();
     }
 
+    /**
+     * Waits (at most {@code seconds}) for the warm-up to finish, starting it if need be: Symja loads
+     * its integration rules on first use, and a time limit that starts before they are loaded can run
+     * out on the loading alone.
+     */
+    static void awaitWarm(double seconds) {
+        warmUp();
+        try {
+            warmer.join(Math.round(seconds * 1000));
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+        }
+    }
+
     double timeoutSeconds() {
         return timeoutSeconds;
     }

@@ -175,7 +175,7 @@ final class Translation {
             return order == 0 ? F.unaryAST1(head, at) : F.unaryAST1(F.unaryAST1(F.Derivative(F.ZZ(order)), head), at);
         }
         IExpr d = order == 0 ? known : symja.eval(F.D(known, F.list(x, F.ZZ(order))));
-        return at.equals(x) ? d : Points.at(symja, d, table.coordinate, at);
+        return at.equals(x) ? d : Points.at(symja, d, table.coordinate, at, table.assumptions(this));
     }
 
     /** Whether the tree still mentions an unknown profile (its head symbol). */
