@@ -216,7 +216,7 @@ public final class DerivationDocument {
     }
 
     private static String sensitivity(Analysis.Row r) {
-        return r.sensitivities().entrySet().stream().map(e -> e.getKey() + " " + String.format(Locale.ROOT, "%.4f", e.getValue()))
+        return r.sensitivities().entrySet().stream().map(e -> e.getKey() + " " + String.format(Locale.ROOT, "%.4f", Math.abs(e.getValue()) < 5e-9 ? 0.0 : e.getValue()))
                 .collect(Collectors.joining(", "));
     }
 

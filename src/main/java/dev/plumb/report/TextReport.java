@@ -50,6 +50,18 @@ public final class TextReport {
                 String unit = r.shownUnit() != null ? r.shownUnit() : r.unit();
                 out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n", r.expr(),
                         num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), relative(r.errorEstimate(), r.numeric()), unit));
+                if (!r.sensitivities().isEmpty()) {
+                    StringBuilder sb = new StringBuilder();
+                    r.sensitivities().forEach((p, v) -> sb.append(String.format(Locale.ROOT, "  %s %.4f", p, Math.abs(v) < 5e-9 ? 0.0 : v)));
+                    out.append(style.dim("      d ln " + r.expr() + " / d ln p:" + sb)).append('\n');
+                }
+                if (r.uncertainty() != null && r.numeric() != null && r.numeric() != 0) {
+                    double v = Math.abs(r.numeric());
+                    out.append(style.dim(String.format(Locale.ROOT,
+                            "      uncertainty: +-%.3g%% first order, +-%.3g%% Monte Carlo (%d samples, +-%.2g%% sampling error, seed %d)",
+                            100 * r.uncertainty().firstOrder() / v, 100 * r.uncertainty().monteCarlo() / v, r.uncertainty().samples(),
+                            100 * r.uncertainty().samplingError() / v, r.uncertainty().seed()))).append('\n');
+                }
             }
         }
         for (String scale : a.scales()) out.append("  ").append(scale).append('\n');
