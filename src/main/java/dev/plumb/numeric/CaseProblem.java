@@ -370,6 +370,7 @@ final class CaseProblem {
             }
             t.surfaceX = stop.x();
             t.surfaceState = stop.y().clone();
+            t.surfaceByApproach = stop.byApproach();
             t.states.put(stop.x(), stop.y().clone());
         } else {
             t.states.put(stop.x(), stop.y().clone());
