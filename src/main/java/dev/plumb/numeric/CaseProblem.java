@@ -71,12 +71,28 @@ final class CaseProblem {
             }
 
             @Override public int newLock() {
-                return form.firstLockSlot() + locks[0]++;
+                return form.firstLockSlot() + 1 + locks[0]++;
+            }
+
+            @Override public int newShared() {
+                int base = form.firstLockSlot() + 1 + locks[0];
+                locks[0] += 2;
+                return base;
+            }
+
+            @Override public int epoch() {
+                return form.firstLockSlot();
+            }
+
+            @Override public boolean shareable(java.util.BitSet reads) {
+                return reads.nextSetBit(form.derivativeSlot(0)) < 0 || reads.nextSetBit(form.derivativeSlot(0)) >= form.constantSlot(0);
             }
         });
         system = RelationSystem.compile(form, compiler, () -> {
-            double[] f = new double[form.firstLockSlot() + locks[0]];
+            // Slot firstLockSlot counts evaluations; locks start free (NaN) and shared values unstamped (NaN).
+            double[] f = new double[form.firstLockSlot() + 1 + locks[0]];
             Arrays.fill(f, form.firstLockSlot(), f.length, Double.NaN);
+            f[form.firstLockSlot()] = 0.0;
             return f;
         });
         frame = system.frame;
@@ -205,6 +221,7 @@ final class CaseProblem {
     private double startScale(int i, List<Stmt.Boundary> rest) {
         if (startValue[i] != null) {
             Arrays.fill(frame, form.constantSlot(0), form.firstLockSlot(), 1.0);
+            Evaluator.newEvaluation(frame, form.firstLockSlot());
             double v = Math.abs(startValue[i].at(frame));
             if (v > 0 && Double.isFinite(v)) return v;
         }
@@ -285,6 +302,7 @@ final class CaseProblem {
             double[] f = frame.clone();
             java.util.function.DoubleUnaryOperator g = x -> {
                 f[0] = x;
+                Evaluator.newEvaluation(f, form.firstLockSlot());
                 return c.g().at(f);
             };
             double x0 = lo, g0 = g.applyAsDouble(lo);
@@ -320,6 +338,7 @@ final class CaseProblem {
             else consts[u.constant()] = v;
         }
         load(consts);
+        Evaluator.newEvaluation(frame, form.firstLockSlot());
         for (int i = 0; i < form.stateSize; i++) if (startValue[i] != null) y0[i] = startValue[i].at(frame);
         return new double[][]{consts, y0};
     }

@@ -76,7 +76,14 @@ final class Integration {
         double saved = f[0];
         f[0] = mid;
         for (ExprCompiler.CoordinateCondition c : conditions) f[c.lockSlot()] = Double.NaN;
-        for (ExprCompiler.CoordinateCondition c : conditions) f[c.lockSlot()] = c.op().test(c.g().at(f), 0.0) ? 1.0 : 0.0;
+        double[] locks = new double[conditions.size()];
+        for (int k = 0; k < locks.length; k++) {
+            Evaluator.newEvaluation(f, system.form.firstLockSlot());
+            ExprCompiler.CoordinateCondition c = conditions.get(k);
+            locks[k] = c.op().test(c.g().at(f), 0.0) ? 1.0 : 0.0;
+        }
+        for (int k = 0; k < locks.length; k++) f[conditions.get(k).lockSlot()] = locks[k];
+        Evaluator.newEvaluation(f, system.form.firstLockSlot());
         f[0] = saved;
     }
 
