@@ -12,8 +12,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
-import java.util.TreeSet;
-import org.apache.commons.math3.analysis.solvers.BrentSolver;
 
 /**
  * One case made concrete: the relations compiled with the case's SI values, the boundaries sorted
@@ -206,7 +204,8 @@ final class CaseProblem {
         // and only relative control keeps its zero, and so the radius, accurate.
         if (surf != null) absTol[surf.index()] = 1e-40 * options.absTolScale() * scale[surf.index()];
         List<ExprCompiler.CoordinateCondition> conds = compiler.conditions();
-        integration = new Integration(system, absTol, relTol, 1e-13 * scaleX, breaks(conds), conds, scale);
+        integration = new Integration(system, absTol, relTol, 1e-13 * scaleX,
+                PiecewiseBreaks.find(conds, frame, form.firstLockSlot(), a, limit), conds, scale);
     }
 
     boolean forward() {
@@ -291,35 +290,6 @@ final class CaseProblem {
         } catch (ConstantEvaluator.NotConstant ex) {
             return Double.NaN;
         }
-    }
-
-    private double[] breaks(List<ExprCompiler.CoordinateCondition> conds) {
-        TreeSet<Double> out = new TreeSet<>();
-        double lo = Math.min(a, limit), hi = Math.max(a, limit);
-        int samples = 256;
-        BrentSolver brent = new BrentSolver(1e-15 * Math.max(Math.abs(lo), Math.abs(hi)) + 1e-300);
-        for (ExprCompiler.CoordinateCondition c : conds) {
-            double[] f = frame.clone();
-            java.util.function.DoubleUnaryOperator g = x -> {
-                f[0] = x;
-                Evaluator.newEvaluation(f, form.firstLockSlot());
-                return c.g().at(f);
-            };
-            double x0 = lo, g0 = g.applyAsDouble(lo);
-            for (int k = 1; k <= samples; k++) {
-                double x1 = lo + (hi - lo) * k / samples, g1 = g.applyAsDouble(x1);
-                if (g1 == 0.0 && x1 < hi) {
-                    out.add(x1);
-                } else if (g0 * g1 < 0) {
-                    out.add(brent.solve(200, g::applyAsDouble, x0, x1));
-                }
-                x0 = x1;
-                g0 = g1;
-            }
-        }
-        out.remove(lo);
-        out.remove(hi);
-        return out.stream().mapToDouble(Double::doubleValue).toArray();
     }
 
     /** Writes the unknown constants into the frame. */
