@@ -21,14 +21,17 @@ final class KernelCompiler {
         }
     };
 
-    private KernelCompiler() {
+    private final int stateSize;
+
+    private KernelCompiler(int stateSize) {
+        this.stateSize = stateSize;
     }
 
     /** A kernel for the given explicit right-hand sides, or null when it cannot be generated or compiled. */
-    static RelationKernel compile(Evaluator[] explicit) {
+    static RelationKernel compile(Evaluator[] explicit, int[] highestIndex, int[] copyFrom, int stateSize) {
         String source;
         try {
-            source = source(explicit);
+            source = source(explicit, highestIndex, copyFrom, stateSize);
         } catch (IllegalArgumentException unsupported) {
             return null;
         }
@@ -53,15 +56,26 @@ final class KernelCompiler {
         }
     }
 
-    static String source(Evaluator[] explicit) {
+    /**
+     * @param highestIndex state index of each profile's highest derivative
+     * @param copyFrom     for each state index, the index whose value is its derivative (a lower
+     *                     derivative of a higher-order profile), or -1
+     */
+    static String source(Evaluator[] explicit, int[] highestIndex, int[] copyFrom, int stateSize) {
+        KernelCompiler gen = new KernelCompiler(stateSize);
         List<Evaluator.Shared> shared = new ArrayList<>();
         for (Evaluator e : explicit) collectShared(e, shared);
         StringBuilder sb = new StringBuilder();
         sb.append("package dev.plumb.numeric.generated;\n");
         sb.append("public final class Kernel implements dev.plumb.numeric.RelationKernel {\n");
-        sb.append("  public void derivatives(double[] f, double[] out) {\n");
-        for (Evaluator.Shared s : shared) sb.append("    double s").append(s.value).append(" = ").append(java(s.body)).append(";\n");
-        for (int j = 0; j < explicit.length; j++) sb.append("    out[").append(j).append("] = ").append(java(explicit[j])).append(";\n");
+        sb.append("  public void derivatives(double x, double[] y, double[] f, double[] yDot) {\n");
+        for (int i = 0; i < copyFrom.length; i++) {
+            if (copyFrom[i] >= 0) sb.append("    yDot[").append(i).append("] = y[").append(copyFrom[i]).append("];\n");
+        }
+        for (Evaluator.Shared s : shared) sb.append("    double s").append(s.value).append(" = ").append(gen.java(s.body)).append(";\n");
+        for (int j = 0; j < explicit.length; j++) {
+            sb.append("    yDot[").append(highestIndex[j]).append("] = ").append(gen.java(explicit[j])).append(";\n");
+        }
         sb.append("  }\n");
         sb.append("  private static double sq(double x) { return x * x; }\n");
         sb.append("  private static double cube(double x) { return x * x * x; }\n}\n");
@@ -98,6 +112,13 @@ final class KernelCompiler {
         return new Evaluator[0];
     }
 
+    /** Frame slot 0 is the coordinate and slots 1..n the state: the kernel reads those from its arguments. */
+    private String slot(int i) {
+        if (i == 0) return "x";
+        if (i <= stateSize) return "y[" + (i - 1) + "]";
+        return "f[" + i + "]";
+    }
+
     private static String lit(double v) {
         if (Double.isNaN(v)) return "Double.NaN";
         if (v == Double.POSITIVE_INFINITY) return "Double.POSITIVE_INFINITY";
@@ -105,19 +126,19 @@ final class KernelCompiler {
         return "(" + Double.toString(v) + ")";
     }
 
-    private static String java(Evaluator e) {
+    private String java(Evaluator e) {
         if (e instanceof Evaluator.Const n) return lit(n.v);
-        if (e instanceof Evaluator.Slot n) return "f[" + n.i + "]";
+        if (e instanceof Evaluator.Slot n) return slot(n.i);
         if (e instanceof Evaluator.Shared n) return "s" + n.value;
         if (e instanceof Evaluator.Add n) return "(" + java(n.a) + " + " + java(n.b) + ")";
         if (e instanceof Evaluator.Sub n) return "(" + java(n.a) + " - " + java(n.b) + ")";
         if (e instanceof Evaluator.Mul n) return "(" + java(n.a) + " * " + java(n.b) + ")";
         if (e instanceof Evaluator.Div n) return "(" + java(n.a) + " / " + java(n.b) + ")";
         if (e instanceof Evaluator.Scale n) return "(" + lit(n.c) + " * " + java(n.a) + ")";
-        if (e instanceof Evaluator.SlotTimes n) return "(f[" + n.i + "] * " + java(n.b) + ")";
-        if (e instanceof Evaluator.SlotSquare n) return "(f[" + n.i + "] * f[" + n.i + "])";
-        if (e instanceof Evaluator.OverSlotSquare n) return "(" + java(n.a) + " / (f[" + n.i + "] * f[" + n.i + "]))";
-        if (e instanceof Evaluator.SlotRatio n) return "(f[" + n.i + "] / f[" + n.j + "])";
+        if (e instanceof Evaluator.SlotTimes n) return "(" + slot(n.i) + " * " + java(n.b) + ")";
+        if (e instanceof Evaluator.SlotSquare n) return "(" + slot(n.i) + " * " + slot(n.i) + ")";
+        if (e instanceof Evaluator.OverSlotSquare n) return "(" + java(n.a) + " / (" + slot(n.i) + " * " + slot(n.i) + "))";
+        if (e instanceof Evaluator.SlotRatio n) return "(" + slot(n.i) + " / " + slot(n.j) + ")";
         if (e instanceof Evaluator.Neg n) return "(-" + java(n.a) + ")";
         if (e instanceof Evaluator.Square n) return "sq(" + java(n.a) + ")";
         if (e instanceof Evaluator.Cube n) return "cube(" + java(n.a) + ")";

@@ -7,6 +7,9 @@ package dev.plumb.numeric;
  */
 public interface RelationKernel {
 
-    /** Writes the highest derivative of each profile into {@code out}, reading the frame {@code f}. */
-    void derivatives(double[] f, double[] out);
+    /**
+     * Writes y' into {@code yDot} for coordinate {@code x} and state {@code y}, reading the unknown
+     * constants and branch locks from the frame {@code f}.
+     */
+    void derivatives(double x, double[] y, double[] f, double[] yDot);
 }

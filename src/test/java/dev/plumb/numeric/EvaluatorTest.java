@@ -17,7 +17,7 @@ class EvaluatorTest {
         Model m = Models.derivation("polytrope.plumb");
         Map<String, Double> values = Map.of("M", 2e30, "R", 7e8);
         CaseProblem p = new CaseProblem(Formulation.of(m), values, NumericOptions.defaults(), Map.of());
-        assertTrue(p.system.compiledToBytecode(), "kernel source:\n" + KernelCompiler.source(explicitOf(p)));
+        assertTrue(p.system.compiledToBytecode(), "kernel source:\n" + KernelCompiler.source(explicitOf(p), new int[]{0, 1}, new int[]{-1, -1}, 2));
         double k = 3.8e9, r = 2e8, pr = 1e15, mr = 1e30;
         p.load(new double[]{k});
         double[] d = p.system.derivatives(r, new double[]{pr, mr});
