@@ -20,16 +20,27 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import dev.plumb.lang.Expr;
+import dev.plumb.numeric.CaseResult;
+import dev.plumb.numeric.NumericEngine;
+import dev.plumb.numeric.NumericOptions;
+import dev.plumb.numeric.NumericResult;
 import dev.plumb.scaling.ScaleLength;
+import dev.plumb.symbolic.Derived;
+import dev.plumb.symbolic.SymbolicEngine;
+import dev.plumb.symbolic.SymbolicOptions;
+import dev.plumb.symbolic.SymbolicResult;
+import dev.plumb.units.UnitCatalog;
+import java.util.LinkedHashMap;
 import dev.plumb.scaling.ScalingChecker;
 
 /** Runs the stages in order on one file: text, syntax tree, checked model, verdicts, report data. */
 public final class Analyzer {
 
     /** Options shared by every command that analyses files. */
-    public record Options(double symbolicTimeoutSeconds) {
+    public record Options(double symbolicTimeoutSeconds, boolean profiles) {
         public static Options defaults() {
-            return new Options(5.0);
+            return new Options(5.0, false);
         }
     }
 
@@ -59,25 +70,28 @@ public final class Analyzer {
         Model model = Checker.check(program, diagnostics);
         List<Check> checks = new ArrayList<>(model.unitChecks());
         List<String> notes = new ArrayList<>();
+        List<Analysis.DerivedForm> derived = new ArrayList<>();
+        List<String> scales = List.of();
+        List<Analysis.CaseTable> tables = new ArrayList<>();
         if (!diagnostics.hasInputErrors()) {
-            pending(model, checks);
-            checks.addAll(new ScalingChecker(model, Map.of(), e -> Optional.empty()).checkAll());
+            SymbolicResult symbolic = SymbolicEngine.analyze(model, new SymbolicOptions(options.symbolicTimeoutSeconds()));
+            checks.addAll(symbolic.checks());
+            notes.addAll(symbolic.notes());
+            Map<String, Expr> closedForms = new LinkedHashMap<>();
+            for (Derived d : symbolic.derived()) {
+                closedForms.put(d.expr(), d.closedForm());
+                derived.add(new Analysis.DerivedForm(d.expr(), d.printed(), UnitCatalog.siName(d.dimension()), d.closedForm(),
+                        d.trail().stream().map(t -> new Analysis.TrailEntry(t.action(), t.result())).toList()));
+            }
+            CaseAnalysis cases = new CaseAnalysis(model, closedForms, notes);
+            NumericResult numeric = NumericEngine.run(model, closedForms, NumericOptions.defaults());
+            checks.addAll(numeric.checks());
+            notes.addAll(numeric.notes());
+            for (CaseResult c : numeric.cases()) tables.add(cases.table(c, options.profiles()));
+            checks.addAll(new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
+            scales = ScaleLength.find(model).stream().map(ScaleLength::describe).toList();
         }
-        List<String> scales = diagnostics.hasInputErrors() ? List.of()
-                : ScaleLength.find(model).stream().map(ScaleLength::describe).toList();
-        return new Analysis(source, model, model.diagnostics(), checks, List.of(), List.of(), scales, notes);
-    }
-
-    /** Checks that later stages decide, reported plainly as not evaluated rather than as holding. */
-    private static void pending(Model model, List<Check> checks) {
-        for (Stmt.Step s : model.steps()) checks.add(notEvaluated("step", s.label(), s.span()));
-        for (Stmt.Claim c : model.claims()) checks.add(notEvaluated("claim", c.label(), c.span()));
-        for (Stmt.Expect e : model.expects()) checks.add(notEvaluated("expect", e.label(), e.span()));
-    }
-
-    private static Check notEvaluated(String kind, Stmt.Label label, Span span) {
-        return Check.of(kind, label.present() ? label.name() : "line " + span.line(), span, Status.NOT_EVALUATED,
-                "not evaluated: this build checks units only");
+        return new Analysis(source, model, model.diagnostics(), checks, derived, tables, scales, notes);
     }
 
     private static Analysis unreadable(Path path, String why) {

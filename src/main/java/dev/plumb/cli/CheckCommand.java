@@ -1,6 +1,7 @@
 package dev.plumb.cli;
 
 import dev.plumb.report.Analysis;
+import dev.plumb.symbolic.SymbolicEngine;
 import dev.plumb.report.Json;
 import dev.plumb.report.JsonReport;
 import dev.plumb.report.Style;
@@ -46,7 +47,8 @@ public final class CheckCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
-        Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout));
+        SymbolicEngine.warmUp();
+        Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout, false));
         List<Analysis> results = new ArrayList<>();
         int status = 0;
         for (Path f : files) {

@@ -59,7 +59,7 @@ public final class ReportCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter stdout = spec.commandLine().getOut();
-        Analysis a = new Analyzer(new Analyzer.Options(symbolicTimeout)).analyze(file);
+        Analysis a = new Analyzer(new Analyzer.Options(symbolicTimeout, true)).analyze(file);
         DiagnosticPrinter printer = new DiagnosticPrinter(Style.detect());
         a.diagnostics().forEach(d -> err.print(printer.print(a.source(), d)));
         err.flush();

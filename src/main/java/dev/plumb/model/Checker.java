@@ -400,8 +400,9 @@ public final class Checker {
             if (!(s instanceof Stmt.Unknown u) || u.unit() != null) continue;
             Optional<Dimension> d = inference.solver.known(inference.symbolForm(u.name()));
             if (d.isPresent()) {
-                diagnostics.note(u.nameSpan(), "the unit of '" + u.name() + "' is inferred as " + UnitCatalog.siName(d.get())
-                        + (UnitCatalog.siName(d.get()).equals(d.get().toString()) ? "" : " = " + d.get()));
+                String what = d.get().isNone() ? "dimensionless" : UnitCatalog.siName(d.get())
+                        + (UnitCatalog.siName(d.get()).equals(d.get().toString()) ? "" : " = " + d.get());
+                diagnostics.note(u.nameSpan(), "the unit of '" + u.name() + "' is inferred: " + what);
             } else {
                 diagnostics.warning(u.nameSpan(), "the unit of '" + u.name() + "' cannot be inferred from the relations",
                         "give it explicitly, e.g. unknown " + u.name() + " [Pa]");

@@ -70,7 +70,7 @@ public final class HtmlMarkup implements Markup {
 
     @Override
     public String finish() {
-        return "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>" + esc(title) + "</title>\n"
+        return "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>" + esc(title) + "</title>\n"
                 + "<style>\nbody{font-family:Georgia,serif;max-width:52em;margin:2em auto;padding:0 1em;line-height:1.45;color:#222}\n"
                 + "table{border-collapse:collapse;margin:1em 0;font-size:0.92em}th,td{border-bottom:1px solid #ccc;padding:0.3em 0.7em;text-align:left}\n"
                 + "th{border-bottom:2px solid #444}.holds{color:#17702a}.fails{color:#b00020;font-weight:bold}.undecided{color:#946200}\n"

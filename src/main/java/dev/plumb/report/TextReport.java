@@ -44,12 +44,12 @@ public final class TextReport {
                 continue;
             }
             out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n",
-                    "quantity", "closed form", "numeric", "rel. diff", "num. err", "unit"));
+                    "quantity", "closed form", "numeric", "rel. diff", "est. error", "unit"));
             for (Analysis.Row r : t.rows()) {
                 double f = r.shownUnit() != null ? r.shownFactor() : 1.0;
                 String unit = r.shownUnit() != null ? r.shownUnit() : r.unit();
                 out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n", r.expr(),
-                        num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), small(r.errorEstimate()), unit));
+                        num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), relative(r.errorEstimate(), r.numeric()), unit));
             }
         }
         for (String scale : a.scales()) out.append("  ").append(scale).append('\n');
@@ -79,6 +79,12 @@ public final class TextReport {
 
     private static String num(Double v, double factor) {
         return v == null ? "-" : String.format(Locale.ROOT, "%.6e", v / factor);
+    }
+
+    /** An absolute error estimate as a fraction of the value, which reads the same in any unit. */
+    private static String relative(Double error, Double value) {
+        if (error == null || value == null) return "-";
+        return value == 0 ? small(error) : small(Math.abs(error / value));
     }
 
     private static String small(Double v) {

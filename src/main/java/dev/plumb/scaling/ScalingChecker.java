@@ -56,20 +56,39 @@ public final class ScalingChecker {
 
     /** The dimensional inputs a quantity can depend on: free and dimensional fixed parameters, constants. */
     public Map<String, Dimension> inputs(Expr quantity) {
-        Set<String> names = new LinkedHashSet<>();
-        for (Stmt s : model.program().statements()) {
-            if (s instanceof Stmt.Relation || s instanceof Stmt.Boundary || s instanceof Stmt.Let || s instanceof Stmt.Coord) {
-                names.addAll(References.names(s));
+        // A quantity that needs no solving depends only on what it mentions (through definitions);
+        // a profile value or an unknown constant depends on everything the relations and boundaries mention.
+        Set<String> names = transitive(References.names(quantity));
+        boolean solved = names.stream().anyMatch(n -> model.symbol(n).orElse(null) instanceof Symbol.Profile
+                || model.symbol(n).orElse(null) instanceof Symbol.UnknownConstant);
+        if (solved) {
+            for (Stmt s : model.program().statements()) {
+                if (s instanceof Stmt.Relation || s instanceof Stmt.Boundary || s instanceof Stmt.Let || s instanceof Stmt.Coord) {
+                    names.addAll(References.names(s));
+                }
             }
         }
-        names.addAll(References.names(quantity));
+        // Constants first, then fixed and free parameters: monomials then read as G*M^2*R^(-4).
         Map<String, Dimension> out = new LinkedHashMap<>();
-        for (Symbol.FreeParam p : model.freeParams()) out.put(p.name(), p.dimension());
-        for (Symbol s : model.symbols().values()) {
-            boolean dimensional = !s.dimension().isNone();
-            if ((s instanceof Symbol.FixedParam || s instanceof Symbol.Builtin) && dimensional && names.contains(s.name())) {
-                out.put(s.name(), s.dimension());
-            }
+        for (Symbol s : model.symbols(Symbol.Builtin.class)) {
+            if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
+        }
+        for (Symbol s : model.symbols(Symbol.FixedParam.class)) {
+            if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
+        }
+        for (Symbol.FreeParam p : model.freeParams()) {
+            if (names.contains(p.name())) out.put(p.name(), p.dimension());
+        }
+        return out;
+    }
+
+    private Set<String> transitive(Set<String> start) {
+        Set<String> out = new LinkedHashSet<>();
+        java.util.ArrayDeque<String> todo = new java.util.ArrayDeque<>(start);
+        while (!todo.isEmpty()) {
+            String n = todo.pop();
+            if (!out.add(n)) continue;
+            if (model.symbol(n).orElse(null) instanceof Symbol.Definition d) todo.addAll(References.names(d.body()));
         }
         return out;
     }
@@ -136,7 +155,8 @@ public final class ScalingChecker {
             case FAILS -> String.join("; ", differences) + " (" + String.join("; ", routes) + ")";
             default -> "no route decided (" + String.join("; ", routes) + ")";
         };
-        Check c = Check.of("scaling", label, s.span(), status, message).with("claimed", toObjects(want)).with("routes", routes)
+        Check c = Check.of("scaling", label, s.span(), status, message).with("claimed", exactOnFree(claimed.get(), free))
+                .with("routes", routes)
                 .with("dimensional_analysis", da.describe(ExprPrinter.print(s.lhs())));
         return found == null ? c : c.with("exponents", found);
     }
@@ -157,19 +177,18 @@ public final class ScalingChecker {
         return out;
     }
 
+    /** Every name with a non-zero exponent (constants such as G included), and every free parameter. */
     private static Map<String, Object> exactOnFree(Map<String, Rational> e, List<String> free) {
         Map<String, Object> out = new LinkedHashMap<>();
-        for (String p : free) {
-            Rational r = e.getOrDefault(p, Rational.ZERO);
-            out.put(p, r.isInteger() ? (Object) r.num() : (Object) r.toDouble());
-        }
+        e.forEach((name, r) -> {
+            if (!r.isZero()) out.put(name, number(r));
+        });
+        for (String p : free) out.putIfAbsent(p, 0L);
         return out;
     }
 
-    private static Map<String, Object> toObjects(Map<String, Double> m) {
-        Map<String, Object> out = new LinkedHashMap<>();
-        m.forEach((k, v) -> out.put(k, v == Math.rint(v) ? (Object) (long) (double) v : (Object) v));
-        return out;
+    private static Object number(Rational r) {
+        return r.isInteger() ? (Object) r.num() : (Object) r.toDouble();
     }
 
     private static void compare(String route, Map<String, Object> found, Map<String, Double> want, double tol,

@@ -52,7 +52,7 @@ class CheckCommandTest {
         Run run = Run.of("check", "--no-color", SPHERE.toString());
         assertEquals(0, run.status(), run::all);
         assertTrue(run.out().contains("uniform-sphere.plumb  Uniform-density sphere"), run.out());
-        assertFalse(run.out().contains("error"), run.out());
+        assertFalse(run.out().contains(": error:"), run.out());
     }
 
     @Test

@@ -71,7 +71,7 @@ class PolytropeUnitsTest {
     @Test
     void theInferredUnitIsReportedAsANote() {
         Checking c = Checking.of(polytrope("3"));
-        assertTrue(c.all(Severity.NOTE).stream().anyMatch(d -> d.message().contains("the unit of 'K' is inferred as")
+        assertTrue(c.all(Severity.NOTE).stream().anyMatch(d -> d.message().contains("the unit of 'K' is inferred: ")
                 && d.span().line() == 7), c.model.diagnostics().toString());
     }
 }

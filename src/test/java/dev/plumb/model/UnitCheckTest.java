@@ -218,7 +218,7 @@ class UnitCheckTest {
         c.assertNoErrors();
         assertEquals(PASCAL, c.model.symbol("Pc").orElseThrow().dimension());
         assertTrue(c.all(dev.plumb.lang.Severity.NOTE).stream()
-                .anyMatch(n -> n.message().contains("the unit of 'Pc' is inferred as Pa")), c.model.diagnostics().toString());
+                .anyMatch(n -> n.message().contains("the unit of 'Pc' is inferred: Pa")), c.model.diagnostics().toString());
     }
 
     @Test

@@ -1,0 +1,135 @@
+package dev.plumb.cli;
+
+import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Span;
+import dev.plumb.model.CaseValues;
+import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.Model;
+import dev.plumb.model.Symbol;
+import dev.plumb.numeric.CaseResult;
+import dev.plumb.numeric.NumericEngine;
+import dev.plumb.numeric.NumericOptions;
+import dev.plumb.numeric.QuantityRow;
+import dev.plumb.numeric.Solution;
+import dev.plumb.numeric.SolveException;
+import dev.plumb.report.Analysis;
+import dev.plumb.scaling.Sweep;
+import dev.plumb.units.UnitCatalog;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+
+/**
+ * Builds each case's table from the numeric result: the comparison rows with their logarithmic
+ * sensitivities to every free parameter, propagated uncertainties where case values carry them,
+ * and sampled profiles for plots.
+ */
+final class CaseAnalysis {
+
+    /** Seed of the Monte Carlo propagation, fixed so that a report is reproducible. */
+    static final long SEED = 20261201L;
+    /** Tolerance of the extra solves behind sensitivities, sweeps and Monte Carlo samples. */
+    static final NumericOptions SWEEP_OPTIONS = new NumericOptions(1e-10, 1e-12, false);
+
+    private final Model model;
+    private final Map<String, Expr> closedForms;
+    private final List<String> notes;
+
+    CaseAnalysis(Model model, Map<String, Expr> closedForms, List<String> notes) {
+        this.model = model;
+        this.closedForms = closedForms;
+        this.notes = notes;
+    }
+
+    /** The quantity as a function of the free parameters, always by solving the relations numerically. */
+    Optional<Sweep.Quantity> numericQuantity(Expr e) {
+        if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) {
+            return Optional.of(p -> new ConstantEvaluator(n -> model.symbols().get(n), p).evaluate(e));
+        }
+        return Optional.of(p -> NumericEngine.solve(model, p, SWEEP_OPTIONS).evaluate(e));
+    }
+
+    /** The quantity as a function of the free parameters: its closed form when known, else a numeric solve. */
+    Optional<Sweep.Quantity> quantity(Expr e) {
+        Expr form = closedForms.get(ExprPrinter.print(e));
+        if (form != null) return Optional.of(p -> new ConstantEvaluator(n -> model.symbols().get(n), p).evaluate(form));
+        if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) {
+            return Optional.of(p -> new ConstantEvaluator(n -> model.symbols().get(n), p).evaluate(e));
+        }
+        return Optional.of(p -> NumericEngine.solve(model, p, SWEEP_OPTIONS).evaluate(e));
+    }
+
+    Analysis.CaseTable table(CaseResult result, boolean profiles) {
+        CaseValues values = model.caseNamed(result.label()).orElse(null);
+        List<Analysis.Row> rows = new ArrayList<>();
+        for (QuantityRow q : result.quantities()) {
+            Map<String, Double> sens = Map.of();
+            Analysis.Uncertainty unc = null;
+            if (values != null && !model.freeParams().isEmpty() && Double.isFinite(q.numeric())) {
+                Expr e = parse(q.expr());
+                Optional<Sweep.Quantity> f = e == null ? Optional.empty() : quantity(e);
+                if (f.isPresent()) {
+                    List<String> free = model.freeParams().stream().map(Symbol.FreeParam::name).toList();
+                    try {
+                        sens = Sweep.sensitivities(f.get(), values.values(), free, 1e-4);
+                        if (!values.uncertainties().isEmpty()) {
+                            boolean closed = closedForms.containsKey(q.expr()) || model.profiles().isEmpty();
+                            int samples = closed ? 20_000 : 400;
+                            Sweep.Uncertainty u = Sweep.propagate(f.get(), values.values(), values.uncertainties(), sens, samples, SEED);
+                            unc = new Analysis.Uncertainty(u.firstOrder(), u.monteCarlo(), u.samplingError(), u.samples(), u.seed());
+                        }
+                    } catch (Exception ex) {
+                        notes.add("case '" + result.label() + "': sensitivities of " + q.expr() + " not computed: " + ex.getMessage());
+                    }
+                }
+            }
+            rows.add(new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
+                    q.relDiff(), Double.isFinite(q.errorEstimate()) ? q.errorEstimate() : null, q.shownUnit(), q.shownFactor(),
+                    sens, unc));
+        }
+        List<Analysis.ProfileSample> samples = profiles && result.solved() ? samples(result.label(), values) : List.of();
+        return new Analysis.CaseTable(result.label(), result.method(), result.failure(), rows, samples);
+    }
+
+    private List<Analysis.ProfileSample> samples(String label, CaseValues values) {
+        Optional<Symbol.Coordinate> coord = model.coordinate();
+        if (coord.isEmpty() || model.profiles().isEmpty()) return List.of();
+        Map<String, Double> params = values == null ? Map.of() : values.values();
+        List<Analysis.ProfileSample> out = new ArrayList<>();
+        try {
+            Solution s = NumericEngine.solve(model, params, SWEEP_OPTIONS);
+            double a = s.evaluate(coord.get().from());
+            double b = s.evaluate(coord.get().to());
+            int n = 121;
+            for (Symbol.Profile p : model.profiles()) {
+                double[] x = new double[n];
+                double[] y = new double[n];
+                double[] c = closedForms.containsKey(p.name() + "(" + coord.get().name() + ")") ? new double[n] : null;
+                Expr form = c == null ? null : closedForms.get(p.name() + "(" + coord.get().name() + ")");
+                for (int i = 0; i < n; i++) {
+                    x[i] = a + (b - a) * i / (n - 1);
+                    y[i] = s.evaluate(new Expr.Call(p.name(), Span.NONE, 0, List.of(new Expr.Num(x[i], Double.toString(x[i]), Span.NONE)),
+                            Span.NONE));
+                    if (c != null) {
+                        Map<String, Double> at = new LinkedHashMap<>(params);
+                        at.put(coord.get().name(), x[i]);
+                        c[i] = new ConstantEvaluator(nm -> model.symbols().get(nm), at).evaluate(form);
+                    }
+                }
+                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), UnitCatalog.siName(coord.get().dimension()),
+                        UnitCatalog.siName(p.dimension()), x, y, c));
+            }
+        } catch (SolveException | ConstantEvaluator.NotConstant ex) {
+            notes.add("case '" + label + "': profiles not sampled for plotting: " + ex.getMessage());
+        }
+        return out;
+    }
+
+    static Expr parse(String text) {
+        dev.plumb.lang.Diagnostics d = new dev.plumb.lang.Diagnostics();
+        return new dev.plumb.lang.Parser(new dev.plumb.lang.Lexer(text, d).tokens(), d).expressionOnly();
+    }
+}

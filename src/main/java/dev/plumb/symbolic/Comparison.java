@@ -1,0 +1,198 @@
+package dev.plumb.symbolic;
+
+import dev.plumb.model.Status;
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.matheclipse.core.expression.F;
+import org.matheclipse.core.interfaces.IExpr;
+import org.matheclipse.core.interfaces.ISymbol;
+
+/**
+ * Decides whether two expressions are identically equal, two ways that must agree: symbolic
+ * simplification of the difference under the assumptions, and a randomized identity test at
+ * {@value #POINTS} points in high precision. When they differ it says how: the constant ratio
+ * claimed/true (identified exactly: 2, -1, 3/2, 8*pi/3, ...), or the quantities the ratio
+ * depends on, or that the difference is free of the coordinate.
+ */
+final class Comparison {
+
+    static final int POINTS = 12;
+    private static final BigDecimal ZERO_TOLERANCE = new BigDecimal("1e-30");
+    private static final BigDecimal SAME_TOLERANCE = new BigDecimal("1e-25");
+
+    /** The verdict; {@code factor} is the exact constant ratio claimed/true when there is one. */
+    record Verdict(Status status, String message, String factor, Optional<BigDecimal> ratio) {
+        boolean holds() {
+            return status == Status.HOLDS;
+        }
+    }
+
+    private final Symja symja;
+    private final Translation translation;
+    private final Sampler sampler;
+    private final IExpr assumptions;
+
+    Comparison(Symja symja, Translation translation, Sampler sampler, IExpr assumptions) {
+        this.symja = symja;
+        this.translation = translation;
+        this.sampler = sampler;
+        this.assumptions = assumptions;
+    }
+
+    /** Compares a claimed expression with the true one. */
+    Verdict compare(IExpr claimed, IExpr truth) {
+        String symbolic;
+        Boolean symbolicZero;
+        try {
+            IExpr d = symja.eval(F.Simplify(F.Subtract(claimed, truth), assumptions));
+            if (!d.isZero()) d = symja.eval(F.Simplify(F.PowerExpand(F.Together(d)), assumptions));
+            if (!d.isZero()) {
+                // Exponential profiles compare better through their logarithms; PowerExpand is sound
+                // here because every base is positive under the assumptions, and the numeric test must agree.
+                IExpr logs = symja.eval(F.Simplify(F.Subtract(F.PowerExpand(F.Log(F.Together(claimed))),
+                        F.PowerExpand(F.Log(F.Together(truth)))), assumptions));
+                if (logs.isZero()) d = logs;
+            }
+            symbolicZero = d.isZero();
+            symbolic = symbolicZero ? "the difference simplifies to 0" : "the difference does not simplify to 0";
+        } catch (Symja.Failure f) {
+            symbolicZero = null;
+            symbolic = f.getMessage();
+        }
+        List<BigDecimal[]> samples = new ArrayList<>();
+        List<Map<ISymbol, IExpr>> points = new ArrayList<>();
+        for (int tries = 0; samples.size() < POINTS && tries < 4 * POINTS; tries++) {
+            Map<ISymbol, IExpr> p = sampler.point(translation);
+            BigDecimal l = sampler.value(claimed, p);
+            BigDecimal r = sampler.value(truth, p);
+            if (l == null || r == null) continue;
+            samples.add(new BigDecimal[] {l, r});
+            points.add(p);
+        }
+        if (samples.size() < POINTS / 2) {
+            String why = "the numeric identity test found too few points where both sides are real numbers";
+            if (Boolean.TRUE.equals(symbolicZero)) return new Verdict(Status.UNDECIDED, symbolic + ", but " + why, null, Optional.empty());
+            return new Verdict(Status.UNDECIDED, why + "; " + symbolic, null, Optional.empty());
+        }
+        boolean numericZero = samples.stream().allMatch(s -> same(s[0], s[1], ZERO_TOLERANCE));
+        String numeric = "numeric identity test at " + samples.size() + " random points (" + Sampler.DIGITS + " digits)";
+        if (numericZero && Boolean.TRUE.equals(symbolicZero)) {
+            return new Verdict(Status.HOLDS, symbolic + "; " + numeric + " agrees", null, Optional.empty());
+        }
+        if (numericZero) {
+            return new Verdict(Status.UNDECIDED, numeric + " finds no difference, but " + symbolic, null, Optional.empty());
+        }
+        if (Boolean.TRUE.equals(symbolicZero)) {
+            return new Verdict(Status.UNDECIDED, "the symbolic and numeric tests disagree: " + symbolic + ", but the "
+                    + numeric + " finds a difference", null, Optional.empty());
+        }
+        return diagnose(claimed, truth, samples, points);
+    }
+
+    private Verdict diagnose(IExpr claimed, IExpr truth, List<BigDecimal[]> samples, List<Map<ISymbol, IExpr>> points) {
+        if (samples.stream().allMatch(s -> s[1].signum() == 0)) {
+            return new Verdict(Status.FAILS, "it should be 0 but is not", null, Optional.empty());
+        }
+        List<BigDecimal> ratios = new ArrayList<>();
+        for (BigDecimal[] s : samples) {
+            if (s[1].signum() != 0) ratios.add(s[0].divide(s[1], Sampler.MC));
+        }
+        BigDecimal first = ratios.get(0);
+        boolean constant = ratios.stream().allMatch(q -> same(q, first, SAME_TOLERANCE));
+        if (constant) {
+            if (first.signum() == 0) return new Verdict(Status.FAILS, "it is 0 but should not be", null, Optional.empty());
+            Optional<String> exact = ExactNumber.identify(first, symja).flatMap(this::print);
+            String f = exact.orElse(first.round(new MathContext(8)).toString());
+            String msg = f.equals("-1") ? "the sign is wrong: claimed/true = -1"
+                    : "off by a constant factor: claimed/true = " + f + (exact.isEmpty() ? " (not identified exactly)" : "");
+            return new Verdict(Status.FAILS, msg, f, Optional.of(first));
+        }
+        return new Verdict(Status.FAILS, dependence(claimed, truth, points.get(0)), null, Optional.empty());
+    }
+
+    /** How the ratio claimed/true varies: a power of each quantity it depends on, or not a power law. */
+    private String dependence(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> base) {
+        BigDecimal r0 = ratio(claimed, truth, base);
+        if (r0 == null) return "the two sides differ";
+        Map<String, String> powers = new LinkedHashMap<>();
+        List<String> other = new ArrayList<>();
+        for (var entry : translation.table().all().entrySet()) {
+            ISymbol v = entry.getValue();
+            if (!base.containsKey(v) || !(claimed.has(v, true) || truth.has(v, true))) continue;
+            BigDecimal r2 = ratio(claimed, truth, scaled(base, v, 2));
+            BigDecimal r3 = ratio(claimed, truth, scaled(base, v, 3));
+            if (r2 == null || r3 == null) continue;
+            if (same(r2, r0, SAME_TOLERANCE) && same(r3, r0, SAME_TOLERANCE)) continue;
+            double q2 = r2.divide(r0, Sampler.MC).doubleValue();
+            double q3 = r3.divide(r0, Sampler.MC).doubleValue();
+            double a2 = q2 > 0 ? Math.log(q2) / Math.log(2) : Double.NaN;
+            double a3 = q3 > 0 ? Math.log(q3) / Math.log(3) : Double.NaN;
+            var exponent = dev.plumb.units.Rational.approximate(a2, 12);
+            if (!Double.isNaN(a2) && Math.abs(a2 - a3) < 1e-9 && exponent.isPresent()
+                    && Math.abs(exponent.get().toDouble() - a2) < 1e-9) {
+                powers.put(entry.getKey(), exponent.get().toString());
+            } else {
+                other.add(entry.getKey());
+            }
+        }
+        List<String> parts = new ArrayList<>();
+        if (!powers.isEmpty()) {
+            List<String> f = new ArrayList<>();
+            powers.forEach((n, e) -> f.add(e.equals("1") ? n : n + "^" + (e.contains("/") || e.startsWith("-") ? "(" + e + ")" : e)));
+            parts.add("differs by a factor proportional to " + String.join("*", f));
+        }
+        if (!other.isEmpty()) {
+            parts.add("claimed/true depends on " + String.join(", ", other) + (powers.isEmpty() ? "" : " in a way that is not a power law"));
+        }
+        String coord = translation.table().name(translation.table().coordinate);
+        if (!powers.containsKey(coord) && other.contains(coord) && differenceFreeOf(claimed, truth, base)) {
+            parts.add("the difference does not depend on " + coord + " (a constant of integration or a boundary value is off)");
+        }
+        return parts.isEmpty() ? "the two sides differ" : String.join("; ", parts);
+    }
+
+    private boolean differenceFreeOf(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> base) {
+        ISymbol x = translation.table().coordinate;
+        BigDecimal d0 = difference(claimed, truth, base);
+        BigDecimal d1 = difference(claimed, truth, scaled(base, x, 2));
+        BigDecimal d2 = difference(claimed, truth, scaled(base, x, 3));
+        return d0 != null && d1 != null && d2 != null && same(d0, d1, SAME_TOLERANCE) && same(d0, d2, SAME_TOLERANCE);
+    }
+
+    private BigDecimal difference(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> p) {
+        BigDecimal l = sampler.value(claimed, p);
+        BigDecimal r = sampler.value(truth, p);
+        return l == null || r == null ? null : l.subtract(r);
+    }
+
+    private BigDecimal ratio(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> p) {
+        BigDecimal l = sampler.value(claimed, p);
+        BigDecimal r = sampler.value(truth, p);
+        return l == null || r == null || r.signum() == 0 ? null : l.divide(r, Sampler.MC);
+    }
+
+    private static Map<ISymbol, IExpr> scaled(Map<ISymbol, IExpr> base, ISymbol v, int factor) {
+        Map<ISymbol, IExpr> p = new LinkedHashMap<>(base);
+        p.put(v, F.Times(base.get(v), F.ZZ(factor)));
+        return p;
+    }
+
+    private Optional<String> print(IExpr e) {
+        try {
+            return Optional.of(new PlumbForm(translation.table()).print(e));
+        } catch (Translation.Untranslatable ex) {
+            return Optional.empty();
+        }
+    }
+
+    static boolean same(BigDecimal a, BigDecimal b, BigDecimal tolerance) {
+        BigDecimal scale = a.abs().max(b.abs());
+        if (scale.signum() == 0) return true;
+        return a.subtract(b).abs().compareTo(scale.multiply(tolerance)) <= 0;
+    }
+}

@@ -1,0 +1,118 @@
+package dev.plumb.symbolic;
+
+import dev.plumb.model.CaseValues;
+import dev.plumb.model.Symbol;
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.math.RoundingMode;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import org.apfloat.Apfloat;
+import org.matheclipse.core.expression.F;
+import org.matheclipse.core.interfaces.IExpr;
+import org.matheclipse.core.interfaces.IFraction;
+import org.matheclipse.core.interfaces.IInteger;
+import org.matheclipse.core.interfaces.INum;
+import org.matheclipse.core.interfaces.ISymbol;
+
+/**
+ * Random points of the parameter domain and high-precision evaluation there. Parameters are
+ * drawn as exact rationals (around a case value when the file has cases, so scales are
+ * physical), built-in constants are scaled by a random factor (an identity must not hold only
+ * for G's value), fixed parameters keep their value, and the coordinate falls inside its
+ * interval. Evaluation runs at {@value #DIGITS} digits, so cancellation cannot fake a zero.
+ */
+final class Sampler {
+
+    static final int DIGITS = 60;
+    static final MathContext MC = new MathContext(DIGITS, RoundingMode.HALF_EVEN);
+
+    private final Symja symja;
+    private final SymbolTable table;
+    private final Random random;
+
+    Sampler(Symja symja, SymbolTable table, long seed) {
+        this.symja = symja;
+        this.table = table;
+        this.random = new Random(seed);
+    }
+
+    /** One random point: a value for every private symbol but the profile heads. */
+    Map<ISymbol, IExpr> point(Translation t) {
+        Map<ISymbol, IExpr> values = new LinkedHashMap<>();
+        List<CaseValues> cases = table.model().cases();
+        CaseValues around = cases.isEmpty() ? null : cases.get(random.nextInt(cases.size()));
+        Symbol.Coordinate coordinate = null;
+        for (var entry : table.all().entrySet()) {
+            Symbol s = table.model().symbols().get(entry.getKey());
+            ISymbol sym = entry.getValue();
+            if (s instanceof Symbol.Profile) continue;
+            if (s instanceof Symbol.Coordinate c) {
+                coordinate = c;
+                continue;
+            }
+            var fixed = table.fixedValue(entry.getKey());
+            if (s instanceof Symbol.FixedParam && fixed.isPresent()) {
+                values.put(sym, Translation.rational(fixed.get()));
+            } else if (s instanceof Symbol.Builtin && fixed.isPresent()) {
+                values.put(sym, Translation.rational(fixed.get().multiply(uniform(0.5, 2)).round(MC)));
+            } else if (around != null && around.values().containsKey(entry.getKey())) {
+                values.put(sym, Translation.rational(new BigDecimal(around.values().get(entry.getKey())).multiply(uniform(0.5, 2)).round(MC)));
+            } else {
+                values.put(sym, Translation.rational(uniform(0.5, 3)));
+            }
+        }
+        if (coordinate != null) {
+            IExpr x = table.coordinate;
+            BigDecimal from = bound(t, coordinate.from(), values, BigDecimal.ZERO);
+            BigDecimal to = bound(t, coordinate.to(), values, from.add(BigDecimal.ONE));
+            BigDecimal u = uniform(0.05, 0.95);
+            values.put((ISymbol) x, Translation.rational(from.add(to.subtract(from).multiply(u)).round(MC)));
+        }
+        return values;
+    }
+
+    private BigDecimal bound(Translation t, dev.plumb.lang.Expr e, Map<ISymbol, IExpr> values, BigDecimal fallback) {
+        try {
+            BigDecimal v = value(t.plain(e), values);
+            return v == null ? fallback : v;
+        } catch (Translation.Untranslatable ex) {
+            return fallback;
+        }
+    }
+
+    private BigDecimal uniform(double lo, double hi) {
+        double v = lo + (hi - lo) * random.nextDouble();
+        return new BigDecimal(v).round(new MathContext(12));
+    }
+
+    /** The value of {@code e} at the point, or null when it is not a finite real number there. */
+    BigDecimal value(IExpr e, Map<ISymbol, IExpr> values) {
+        List<IExpr> rules = new ArrayList<>();
+        values.forEach((k, v) -> rules.add(F.Rule(k, v)));
+        IExpr n;
+        try {
+            n = symja.eval(F.N(F.ReplaceAll(e, F.ListAlloc(rules)), F.ZZ(DIGITS)));
+        } catch (Symja.Failure f) {
+            return null;
+        }
+        return decimal(n);
+    }
+
+    static BigDecimal decimal(IExpr n) {
+        if (n instanceof IInteger i) return new BigDecimal(i.toBigNumerator());
+        if (n instanceof IFraction q) return new BigDecimal(q.toBigNumerator()).divide(new BigDecimal(q.toBigDenominator()), MC);
+        if (n instanceof INum num) {
+            Apfloat a = num.apfloatValue();
+            try {
+                return new BigDecimal(a.toString(true));
+            } catch (NumberFormatException ex) {
+                return null;
+            }
+        }
+        return null;
+    }
+}

@@ -1,0 +1,141 @@
+package dev.plumb.symbolic;
+
+import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Stmt;
+import dev.plumb.model.Check;
+import dev.plumb.model.Model;
+import dev.plumb.model.Symbol;
+import dev.plumb.units.Dimension;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import org.matheclipse.core.interfaces.IExpr;
+
+/**
+ * The symbolic stage: from a checked model to closed forms, claim verdicts and step verdicts.
+ * Each computer-algebra call has a time limit; what runs out of time is reported as undecided
+ * with the reason, and the rest of the run goes on.
+ */
+public final class SymbolicEngine {
+
+    private SymbolicEngine() {
+    }
+
+    /** Starts Symja on a background thread so that the first real call does not pay the warm-up. Idempotent. */
+    public static void warmUp() {
+        Symja.warmUp();
+    }
+
+    public static SymbolicResult analyze(Model model, SymbolicOptions options) {
+        Symja.awaitWarm(30);
+        Symja symja = new Symja(options.timeoutSeconds());
+        SymbolTable table = new SymbolTable(model);
+        Translation plain = new Translation(table, symja, Map.of(), Map.of());
+        IExpr assumptions = table.assumptions(plain);
+        List<String> notes = new ArrayList<>();
+
+        ClosedForms closedForms = new ClosedForms(symja, table, assumptions, Map.of(), notes);
+        ClosedForms.Found found = closedForms.derive();
+        Map<String, List<TrailStep>> trails = new LinkedHashMap<>(found.trails());
+        Map<String, IExpr> constants = new BoundaryConstants(symja, table, closedForms)
+                .solve(found.profiles(), found.usedBoundaries(), trails, notes);
+
+        PlumbForm form = new PlumbForm(table);
+        List<Derived> derived = new ArrayList<>();
+        Map<String, Expr> profiles = new LinkedHashMap<>();
+        Map<String, Expr> constantForms = new LinkedHashMap<>();
+        String x = model.coordinate().map(Symbol::name).orElse("x");
+        found.profiles().forEach((name, closed) -> {
+            Expr e = plumb(form, closedForms.neat(closed), notes, name);
+            if (e == null) return;
+            profiles.put(name, e);
+            derived.add(new Derived(name + "(" + x + ")", e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
+        });
+        constants.forEach((name, closed) -> {
+            Expr e = plumb(form, closedForms.neat(closed), notes, name);
+            if (e == null) return;
+            constantForms.put(name, e);
+            derived.add(new Derived(name, e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
+        });
+        derived.addAll(pointValues(model, symja, table, closedForms, found.profiles(), constants, form, notes));
+
+        Verification verification = new Verification(symja, table, assumptions, found.profiles(), constants);
+        List<Check> checks = new ArrayList<>();
+        for (Stmt s : model.program().statements()) {
+            if (s instanceof Stmt.Step st) checks.add(verification.step(st, model.unitChecks()));
+            if (s instanceof Stmt.Claim c) checks.add(verification.claim(c));
+        }
+        return new SymbolicResult(checks, derived, profiles, constantForms, notes);
+    }
+
+    private static Expr plumb(PlumbForm form, IExpr closed, List<String> notes, String what) {
+        try {
+            return form.readable(closed);
+        } catch (Translation.Untranslatable u) {
+            notes.add("the closed form of " + what + " has no plumb form (" + u.getMessage() + ")");
+            return null;
+        }
+    }
+
+    /** Every point value ({@code P(0)}, {@code m(R)}) that a claim, expectation, show or scaling asks for. */
+    private static List<Derived> pointValues(Model model, Symja symja, SymbolTable table, ClosedForms closedForms,
+                                             Map<String, IExpr> profiles, Map<String, IExpr> constants, PlumbForm form,
+                                             List<String> notes) {
+        Set<String> seen = new LinkedHashSet<>();
+        List<Expr.Call> calls = new ArrayList<>();
+        List<Expr> roots = new ArrayList<>();
+        model.claims().forEach(c -> {
+            roots.add(c.equation().lhs());
+            roots.add(c.equation().rhs());
+        });
+        model.expects().forEach(e -> roots.add(e.lhs()));
+        model.shows().forEach(s -> roots.add(s.expr()));
+        model.scalings().forEach(s -> roots.add(s.lhs()));
+        for (Expr r : roots) collectPointCalls(r, model, calls);
+        List<Derived> out = new ArrayList<>();
+        Translation t = new Translation(table, symja, profiles, constants);
+        for (Expr.Call c : calls) {
+            String text = ExprPrinter.print(c);
+            if (!seen.add(text)) continue;
+            try {
+                IExpr value = symja.eval(t.plain(c));
+                if (t.mentionsUnknownProfile(value) || !t.unknownConstantsIn(value).isEmpty()) continue;
+                IExpr simple = closedForms.neat(value);
+                Expr e = form.readable(simple);
+                Dimension d = model.dimensionOf(c);
+                List<TrailStep> trail = List.of(
+                        new TrailStep("substitute " + (profiles.containsKey(c.callee()) ? "the closed form of " + c.callee()
+                                : "the definition of " + c.callee()), text + " = " + closedForms.print(value)),
+                        new TrailStep("simplify", text + " = " + ExprPrinter.print(e)));
+                out.add(new Derived(text, e, ExprPrinter.print(e), d, trail));
+            } catch (Translation.Untranslatable | Symja.Failure ex) {
+                notes.add(text + ": " + ex.getMessage());
+            }
+        }
+        return out;
+    }
+
+    private static void collectPointCalls(Expr e, Model model, List<Expr.Call> out) {
+        if (e instanceof Expr.Call c) {
+            Symbol s = model.symbols().get(c.callee());
+            boolean atCoordinate = c.args().size() == 1 && c.args().get(0) instanceof Expr.Name n
+                    && model.coordinate().map(x -> x.name().equals(n.id())).orElse(false);
+            if ((s instanceof Symbol.Profile || (s instanceof Symbol.Definition d && !d.params().isEmpty())) && !atCoordinate) {
+                out.add(c);
+            }
+            c.args().forEach(a -> collectPointCalls(a, model, out));
+        } else if (e instanceof Expr.Neg n) {
+            collectPointCalls(n.operand(), model, out);
+        } else if (e instanceof Expr.Binary b) {
+            collectPointCalls(b.left(), model, out);
+            collectPointCalls(b.right(), model, out);
+        } else if (e instanceof Expr.If i) {
+            collectPointCalls(i.then(), model, out);
+            collectPointCalls(i.otherwise(), model, out);
+        }
+    }
+}

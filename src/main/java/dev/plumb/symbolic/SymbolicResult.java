@@ -1,0 +1,26 @@
+package dev.plumb.symbolic;
+
+import dev.plumb.lang.Expr;
+import dev.plumb.model.Check;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * What the symbolic stage found for one model.
+ *
+ * @param checks    verdicts of kind "claim" and "step", in file order
+ * @param derived   closed forms of profiles, point values and unknown constants
+ * @param profiles  unknown profile name to its closed form in the coordinate (absent when none was found)
+ * @param constants unknown constant name to its closed form (absent when none was found)
+ * @param notes     sentences about what could not be done symbolically, and why
+ */
+public record SymbolicResult(List<Check> checks, List<Derived> derived, Map<String, Expr> profiles,
+                             Map<String, Expr> constants, List<String> notes) {
+    public SymbolicResult {
+        checks = List.copyOf(checks);
+        derived = List.copyOf(derived);
+        profiles = Map.copyOf(profiles);
+        constants = Map.copyOf(constants);
+        notes = List.copyOf(notes);
+    }
+}
