@@ -12,8 +12,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
-import java.util.TreeSet;
-import org.apache.commons.math3.analysis.solvers.BrentSolver;
 
 /**
  * One case made concrete: the relations compiled with the case's SI values, the boundaries sorted
@@ -71,12 +69,28 @@ final class CaseProblem {
             }
 
             @Override public int newLock() {
-                return form.firstLockSlot() + locks[0]++;
+                return form.firstLockSlot() + 1 + locks[0]++;
+            }
+
+            @Override public int newShared() {
+                int base = form.firstLockSlot() + 1 + locks[0];
+                locks[0] += 2;
+                return base;
+            }
+
+            @Override public int epoch() {
+                return form.firstLockSlot();
+            }
+
+            @Override public boolean shareable(java.util.BitSet reads) {
+                return reads.nextSetBit(form.derivativeSlot(0)) < 0 || reads.nextSetBit(form.derivativeSlot(0)) >= form.constantSlot(0);
             }
         });
         system = RelationSystem.compile(form, compiler, () -> {
-            double[] f = new double[form.firstLockSlot() + locks[0]];
+            // Slot firstLockSlot counts evaluations; locks start free (NaN) and shared values unstamped (NaN).
+            double[] f = new double[form.firstLockSlot() + 1 + locks[0]];
             Arrays.fill(f, form.firstLockSlot(), f.length, Double.NaN);
+            f[form.firstLockSlot()] = 0.0;
             return f;
         });
         frame = system.frame;
@@ -190,7 +204,8 @@ final class CaseProblem {
         // and only relative control keeps its zero, and so the radius, accurate.
         if (surf != null) absTol[surf.index()] = 1e-40 * options.absTolScale() * scale[surf.index()];
         List<ExprCompiler.CoordinateCondition> conds = compiler.conditions();
-        integration = new Integration(system, absTol, relTol, 1e-13 * scaleX, breaks(conds), conds, scale);
+        integration = new Integration(system, absTol, relTol, 1e-13 * scaleX,
+                PiecewiseBreaks.find(conds, frame, form.firstLockSlot(), a, limit), conds, scale);
     }
 
     boolean forward() {
@@ -205,6 +220,7 @@ final class CaseProblem {
     private double startScale(int i, List<Stmt.Boundary> rest) {
         if (startValue[i] != null) {
             Arrays.fill(frame, form.constantSlot(0), form.firstLockSlot(), 1.0);
+            Evaluator.newEvaluation(frame, form.firstLockSlot());
             double v = Math.abs(startValue[i].at(frame));
             if (v > 0 && Double.isFinite(v)) return v;
         }
@@ -276,34 +292,6 @@ final class CaseProblem {
         }
     }
 
-    private double[] breaks(List<ExprCompiler.CoordinateCondition> conds) {
-        TreeSet<Double> out = new TreeSet<>();
-        double lo = Math.min(a, limit), hi = Math.max(a, limit);
-        int samples = 256;
-        BrentSolver brent = new BrentSolver(1e-15 * Math.max(Math.abs(lo), Math.abs(hi)) + 1e-300);
-        for (ExprCompiler.CoordinateCondition c : conds) {
-            double[] f = frame.clone();
-            java.util.function.DoubleUnaryOperator g = x -> {
-                f[0] = x;
-                return c.g().at(f);
-            };
-            double x0 = lo, g0 = g.applyAsDouble(lo);
-            for (int k = 1; k <= samples; k++) {
-                double x1 = lo + (hi - lo) * k / samples, g1 = g.applyAsDouble(x1);
-                if (g1 == 0.0 && x1 < hi) {
-                    out.add(x1);
-                } else if (g0 * g1 < 0) {
-                    out.add(brent.solve(200, g::applyAsDouble, x0, x1));
-                }
-                x0 = x1;
-                g0 = g1;
-            }
-        }
-        out.remove(lo);
-        out.remove(hi);
-        return out.stream().mapToDouble(Double::doubleValue).toArray();
-    }
-
     /** Writes the unknown constants into the frame. */
     void load(double[] constantValues) {
         System.arraycopy(constantValues, 0, frame, form.constantSlot(0), constantValues.length);
@@ -320,6 +308,7 @@ final class CaseProblem {
             else consts[u.constant()] = v;
         }
         load(consts);
+        Evaluator.newEvaluation(frame, form.firstLockSlot());
         for (int i = 0; i < form.stateSize; i++) if (startValue[i] != null) y0[i] = startValue[i].at(frame);
         return new double[][]{consts, y0};
     }
@@ -370,6 +359,7 @@ final class CaseProblem {
             }
             t.surfaceX = stop.x();
             t.surfaceState = stop.y().clone();
+            t.surfaceByApproach = stop.byApproach();
             t.states.put(stop.x(), stop.y().clone());
         } else {
             t.states.put(stop.x(), stop.y().clone());

@@ -28,6 +28,37 @@ public abstract class Evaluator {
         return new Slot(i);
     }
 
+    /** Starts a new evaluation of the frame's formulas: values shared between them are recomputed once. */
+    static void newEvaluation(double[] frame, int epochSlot) {
+        frame[epochSlot] += 1.0;
+    }
+
+    /**
+     * A definition called with the same arguments in several relations ({@code rho(r)} in both the
+     * balance and the mass relation): computed once per evaluation of the frame and kept in a slot,
+     * stamped with the evaluation it belongs to.
+     */
+    static final class Shared extends Evaluator {
+        final Evaluator body;
+        final int value, stamp, epoch;
+
+        Shared(Evaluator body, int value, int stamp, int epoch) {
+            this.body = body;
+            this.value = value;
+            this.stamp = stamp;
+            this.epoch = epoch;
+        }
+
+        @Override public double at(double[] f) {
+            double e = f[epoch];
+            if (f[stamp] == e) return f[value];
+            double v = body.at(f);
+            f[value] = v;
+            f[stamp] = e;
+            return v;
+        }
+    }
+
     static final class Const extends Evaluator {
         final double v;
 
@@ -111,6 +142,65 @@ public abstract class Evaluator {
 
         @Override public double at(double[] f) {
             return c * a.at(f);
+        }
+    }
+
+    /** A slot times a sub-formula: saves one dispatch in the commonest product, {@code m(r)*rho(r)}. */
+    static final class SlotTimes extends Evaluator {
+        final int i;
+        final Evaluator b;
+
+        SlotTimes(int i, Evaluator b) {
+            this.i = i;
+            this.b = b;
+        }
+
+        @Override public double at(double[] f) {
+            return f[i] * b.at(f);
+        }
+    }
+
+    /** The square of a slot, {@code r^2}. */
+    static final class SlotSquare extends Evaluator {
+        final int i;
+
+        SlotSquare(int i) {
+            this.i = i;
+        }
+
+        @Override public double at(double[] f) {
+            double x = f[i];
+            return x * x;
+        }
+    }
+
+    /** A sub-formula over the square of a slot, {@code .../r^2}. */
+    static final class OverSlotSquare extends Evaluator {
+        final Evaluator a;
+        final int i;
+
+        OverSlotSquare(Evaluator a, int i) {
+            this.a = a;
+            this.i = i;
+        }
+
+        @Override public double at(double[] f) {
+            double x = f[i];
+            return a.at(f) / (x * x);
+        }
+    }
+
+    /** One slot over another, {@code P(r)/K}. */
+    static final class SlotRatio extends Evaluator {
+        final int i, j;
+
+        SlotRatio(int i, int j) {
+            this.i = i;
+            this.j = j;
+        }
+
+        @Override public double at(double[] f) {
+            return f[i] / f[j];
         }
     }
 

@@ -34,6 +34,15 @@ final class ExprCompiler {
 
         /** A fresh slot for locking the branch of a coordinate-only {@code if}. */
         int newLock();
+
+        /** Two fresh slots (value, stamp) for a shared definition value, or -1 when sharing is off. */
+        int newShared();
+
+        /** The slot counting evaluations, or -1 when sharing is off. */
+        int epoch();
+
+        /** Whether a tree reading these slots may be shared within one evaluation (it must not read the slots solved for). */
+        boolean shareable(BitSet reads);
     }
 
     /** A condition {@code g(x) <op> 0} that depends on the coordinate alone: a break of a piecewise relation. */
@@ -44,6 +53,7 @@ final class ExprCompiler {
     private final Slots slots;
     private final Map<Evaluator, BitSet> deps = new IdentityHashMap<>();
     private final List<CoordinateCondition> conditions = new ArrayList<>();
+    private final Map<String, Evaluator> shared = new HashMap<>();
     private int depth;
 
     /**
@@ -99,7 +109,7 @@ final class ExprCompiler {
         }
         if (s instanceof Symbol.Builtin b) return constant(b.constant().value());
         if (s instanceof Symbol.UnknownConstant u) return slot(slots.constant(u, n));
-        if (s instanceof Symbol.Definition d && d.params().isEmpty()) return inline(d, Map.of(), n);
+        if (s instanceof Symbol.Definition d && d.params().isEmpty()) return share(d.name(), inline(d, Map.of(), n));
         if (s instanceof Symbol.Profile p) {
             throw new SolveException(n.span(), "the profile '" + p.name() + "' needs its argument here, e.g. " + p.name() + "("
                     + model.coordinate().map(Symbol::name).orElse("r") + ")");
@@ -128,8 +138,15 @@ final class ExprCompiler {
                 throw new SolveException(c.span(), "'" + d.name() + "' takes " + d.params().size() + " argument(s)");
             }
             Map<String, Evaluator> inner = new HashMap<>();
-            for (int i = 0; i < d.params().size(); i++) inner.put(d.params().get(i), compile(c.args().get(i), args));
-            return inline(d, inner, c);
+            StringBuilder key = new StringBuilder(d.name()).append('(');
+            for (int i = 0; i < d.params().size(); i++) {
+                Evaluator a = compile(c.args().get(i), args);
+                inner.put(d.params().get(i), a);
+                key.append(a.isConstant() ? "c" + a.at(null) : a.slot() >= 0 ? "s" + a.slot() : "@" + System.identityHashCode(a)).append(',');
+            }
+            String k = key.toString();
+            Evaluator known = shared.get(k);
+            return known != null ? known : share(k, inline(d, inner, c));
         }
         if (s instanceof Symbol.Profile p) {
             if (c.args().size() != 1) throw new SolveException(c.span(), "'" + p.name() + "' takes one argument");
@@ -152,6 +169,18 @@ final class ExprCompiler {
             return track(out, a);
         }
         throw new SolveException(c.calleeSpan(), "'" + c.callee() + "' cannot be called numerically here");
+    }
+
+    /** Wraps a compiled definition so repeated uses in one evaluation compute it once. */
+    private Evaluator share(String key, Evaluator body) {
+        if (body.isConstant() || body.slot() >= 0 || !slots.shareable(depsOf(body))) return body;
+        Evaluator known = shared.get(key);
+        if (known != null) return known;
+        int base = slots.newShared();
+        if (base < 0) return body;
+        Evaluator e = track(new Evaluator.Shared(body, base, base + 1, slots.epoch()), body);
+        shared.put(key, e);
+        return e;
     }
 
     private Evaluator branch(Expr.If i, Map<String, Evaluator> args) throws SolveException {
@@ -186,8 +215,12 @@ final class ExprCompiler {
             case ADD -> isZero(a) ? b : isZero(b) ? a : track(new Evaluator.Add(a, b), a, b);
             case SUB -> isZero(b) ? a : isZero(a) ? negate(b) : track(new Evaluator.Sub(a, b), a, b);
             case MUL -> a.isConstant() ? scale(a.at(null), b) : b.isConstant() ? scale(b.at(null), a)
+                    : a.slot() >= 0 ? track(new Evaluator.SlotTimes(a.slot(), b), a, b)
+                    : b.slot() >= 0 ? track(new Evaluator.SlotTimes(b.slot(), a), a, b)
                     : track(new Evaluator.Mul(a, b), a, b);
             case DIV -> b.isConstant() ? scale(1.0 / b.at(null), a)
+                    : a.slot() >= 0 && b.slot() >= 0 ? track(new Evaluator.SlotRatio(a.slot(), b.slot()), a, b)
+                    : b instanceof Evaluator.SlotSquare sq ? track(new Evaluator.OverSlotSquare(a, sq.i), a, b)
                     : a.isConstant() && a.at(null) == 1.0 ? track(new Evaluator.Reciprocal(b), b)
                     : a.isConstant() ? scale(a.at(null), track(new Evaluator.Reciprocal(b), b))
                     : track(new Evaluator.Div(a, b), a, b);
@@ -198,7 +231,7 @@ final class ExprCompiler {
     private Evaluator power(Evaluator a, double c) {
         if (c == 1.0) return a;
         if (c == 0.0) return constant(1.0);
-        if (c == 2.0) return track(new Evaluator.Square(a), a);
+        if (c == 2.0) return track(a.slot() >= 0 ? new Evaluator.SlotSquare(a.slot()) : new Evaluator.Square(a), a);
         if (c == 3.0) return track(new Evaluator.Cube(a), a);
         if (c == 0.5) return track(new Evaluator.Sqrt(a), a);
         if (c == -1.0) return track(new Evaluator.Reciprocal(a), a);

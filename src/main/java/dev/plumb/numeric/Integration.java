@@ -20,7 +20,11 @@ import org.apache.commons.math3.ode.sampling.StepInterpolator;
 final class Integration {
 
     /** Where an integration stopped. */
-    record Stop(double x, double[] y, boolean atSurface, int steps) { }
+    record Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach) {
+        Stop(double x, double[] y, boolean atSurface, int steps) {
+            this(x, y, atSurface, steps, false);
+        }
+    }
 
     /** The surface condition: component {@code index} reaches {@code value}. */
     record Surface(int index, double value, String description) { }
@@ -61,7 +65,7 @@ final class Integration {
             steps += s.steps();
             x = s.x();
             y = s.y();
-            if (s.atSurface()) return new Stop(x, y, true, steps);
+            if (s.atSurface()) return new Stop(x, y, true, steps, s.byApproach());
         }
         freeBranches();
         return new Stop(x, y, false, steps);
@@ -72,7 +76,14 @@ final class Integration {
         double saved = f[0];
         f[0] = mid;
         for (ExprCompiler.CoordinateCondition c : conditions) f[c.lockSlot()] = Double.NaN;
-        for (ExprCompiler.CoordinateCondition c : conditions) f[c.lockSlot()] = c.op().test(c.g().at(f), 0.0) ? 1.0 : 0.0;
+        double[] locks = new double[conditions.size()];
+        for (int k = 0; k < locks.length; k++) {
+            Evaluator.newEvaluation(f, system.form.firstLockSlot());
+            ExprCompiler.CoordinateCondition c = conditions.get(k);
+            locks[k] = c.op().test(c.g().at(f), 0.0) ? 1.0 : 0.0;
+        }
+        for (int k = 0; k < locks.length; k++) f[conditions.get(k).lockSlot()] = locks[k];
+        Evaluator.newEvaluation(f, system.form.firstLockSlot());
         f[0] = saved;
     }
 
@@ -122,7 +133,7 @@ final class Integration {
             double xs = last[0];
             double[] ys = lastY[0];
             if (surface != null && Math.abs(ys[surface.index()] - surface.value()) <= 1e-6 * scale[surface.index()]) {
-                return new Stop(xs, ys, true, steps[0]);
+                return new Stop(xs, ys, true, steps[0], true);
             }
             throw new SolveException(system.form.coordinate.span(), "the integration stalled at "
                     + system.form.coordinate.name() + " = " + String.format("%.9g", xs)

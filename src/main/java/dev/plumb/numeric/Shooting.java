@@ -48,9 +48,13 @@ final class Shooting {
         }
         double norm = norm(f);
         List<String> history = new ArrayList<>();
+        double[][] jac = null;
         for (int it = 0; it < MAX_ITERATIONS; it++) {
             if (norm <= tol) return new Result(t, z, it, norm);
-            double[][] jac = jacobian(p, z, f);
+            // A fresh finite-difference Jacobian costs one integration per unknown; after a full Newton
+            // step the Broyden update below is kept instead, which suits the nearly linear log coordinates.
+            boolean freshJacobian = jac == null;
+            if (freshJacobian) jac = jacobian(p, z, f);
             RealVector dz;
             try {
                 LUDecomposition lu = new LUDecomposition(new Array2DRowRealMatrix(jac, false), 1e-14);
@@ -72,6 +76,7 @@ final class Shooting {
                     double[] ft = mismatch(p, tt);
                     double nt = norm(ft);
                     if (nt < (1 - 1e-4 * lambda) * norm || nt <= tol) {
+                        jac = lambda == 1.0 ? broyden(jac, z, trial, f, ft) : null;
                         z = trial;
                         t = tt;
                         f = ft;
@@ -84,6 +89,10 @@ final class Shooting {
                 }
             }
             history.add(String.format("%.3g", norm));
+            if (!accepted && !freshJacobian) {
+                jac = null;
+                continue;
+            }
             if (!accepted) {
                 // Near the integration's own noise no step can reduce the mismatch further: that is convergence.
                 if (norm <= 1e3 * tol) return new Result(t, z, it + 1, norm);
@@ -137,6 +146,27 @@ final class Shooting {
             }
         }
         return null;
+    }
+
+    /** Broyden's rank-one update of the Jacobian after the step z0 to z1 changed the mismatch from f0 to f1. */
+    private static double[][] broyden(double[][] jac, double[] z0, double[] z1, double[] f0, double[] f1) {
+        int m = f0.length, n = z0.length;
+        double[] dz = new double[n];
+        double dz2 = 0;
+        for (int k = 0; k < n; k++) {
+            dz[k] = z1[k] - z0[k];
+            dz2 += dz[k] * dz[k];
+        }
+        if (!(dz2 > 0)) return null;
+        double[][] out = new double[m][];
+        for (int i = 0; i < m; i++) {
+            double predicted = 0;
+            for (int k = 0; k < n; k++) predicted += jac[i][k] * dz[k];
+            double miss = (f1[i] - f0[i]) - predicted;
+            out[i] = jac[i].clone();
+            for (int k = 0; k < n; k++) out[i][k] += miss * dz[k] / dz2;
+        }
+        return out;
     }
 
     static String names(CaseProblem p) {

@@ -41,7 +41,11 @@ final class SolvedCase implements Solution {
         if (p.surface != null) {
             sb.append("; surface ").append(p.surface.description()).append(" = ").append(SeriesStart.trim(p.surface.value()))
                     .append(" found at ").append(p.form.coordinate.name()).append(" = ")
-                    .append(String.format("%.12g", r.trajectory().surfaceX)).append(" by event detection");
+                    .append(String.format("%.12g", r.trajectory().surfaceX))
+                    .append(r.trajectory().surfaceByApproach
+                            ? " (the relations are undefined past it, so it was approached until the step size reached "
+                            + String.format("%.0e", p.integration.minStep) + ")"
+                            : " by event detection");
         }
         if (!p.unknowns.isEmpty()) {
             sb.append("; shooting on ").append(Shooting.names(p)).append(": ").append(r.iterations())

@@ -20,6 +20,7 @@ final class Trajectory implements PointEvaluator.States {
     final String startNote;
     double surfaceX = Double.NaN;
     double[] surfaceState;
+    boolean surfaceByApproach;
     int steps;
 
     Trajectory(CaseProblem problem, double[] constants, double[] start, double seriesX, double[] seriesState, String startNote) {
