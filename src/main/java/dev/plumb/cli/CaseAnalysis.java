@@ -69,7 +69,7 @@ final class CaseAnalysis {
             Map<String, Double> sens = Map.of();
             Analysis.Uncertainty unc = null;
             if (values != null && !model.freeParams().isEmpty() && Double.isFinite(q.numeric())) {
-                Expr e = parse(q.expr());
+                Expr e = dev.plumb.lang.Parser.parseExpression(q.expr());
                 Optional<Sweep.Quantity> f = e == null ? Optional.empty() : quantity(e);
                 if (f.isPresent()) {
                     List<String> free = model.freeParams().stream().map(Symbol.FreeParam::name).toList();
@@ -126,10 +126,5 @@ final class CaseAnalysis {
             notes.add("case '" + label + "': profiles not sampled for plotting: " + ex.getMessage());
         }
         return out;
-    }
-
-    static Expr parse(String text) {
-        dev.plumb.lang.Diagnostics d = new dev.plumb.lang.Diagnostics();
-        return new dev.plumb.lang.Parser(new dev.plumb.lang.Lexer(text, d).tokens(), d).expressionOnly();
     }
 }

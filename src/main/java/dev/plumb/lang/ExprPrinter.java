@@ -11,7 +11,8 @@ public final class ExprPrinter {
         return print(e, 0);
     }
 
-    private static int precedence(Expr e) {
+    /** Binding strength of an expression's top operator: 1 for + -, 2 for * /, 3 for negation, 4 for ^, 5 for atoms. */
+    public static int precedence(Expr e) {
         if (e instanceof Expr.Binary b) {
             return switch (b.op()) {
                 case ADD, SUB -> 1;

@@ -296,6 +296,13 @@ public final class Parser {
         return additive();
     }
 
+    /** Parses the text of one expression, such as {@code P(0)}; null when it is not one. */
+    public static Expr parseExpression(String text) {
+        Diagnostics d = new Diagnostics();
+        Expr e = new Parser(new Lexer(text, d).tokens(), d).expressionOnly();
+        return d.hasErrors() ? null : e;
+    }
+
     /** Parses a lone expression that must fill the whole input (the {@code units} calculator); null after an error. */
     public Expr expressionOnly() {
         try {

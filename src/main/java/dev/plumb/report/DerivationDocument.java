@@ -157,8 +157,7 @@ public final class DerivationDocument {
 
     /** Re-reads a quantity such as {@code P(0)} for typesetting; falls back to a plain name. */
     private static Expr parse(String text) {
-        dev.plumb.lang.Diagnostics d = new dev.plumb.lang.Diagnostics();
-        Expr e = new dev.plumb.lang.Parser(new dev.plumb.lang.Lexer(text, d).tokens(), d).expressionOnly();
+        Expr e = dev.plumb.lang.Parser.parseExpression(text);
         return e != null ? e : new Expr.Name(text, dev.plumb.lang.Span.NONE);
     }
 

@@ -1,6 +1,8 @@
 package dev.plumb.report;
 
 import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Identifier;
 import java.util.Locale;
 import java.util.Map;
 import java.util.stream.Collectors;
@@ -27,20 +29,9 @@ public final class LatexPrinter {
 
     /** An identifier: Greek names become letters, a trailing number or {@code _suffix} a subscript. */
     public static String name(String id) {
-        String base = id;
-        String sub = null;
-        int us = id.indexOf('_');
-        if (us > 0) {
-            base = id.substring(0, us);
-            sub = id.substring(us + 1);
-        } else {
-            int i = id.length();
-            while (i > 1 && Character.isDigit(id.charAt(i - 1))) i--;
-            if (i < id.length()) {
-                base = id.substring(0, i);
-                sub = id.substring(i);
-            }
-        }
+        Identifier.Parts parts = Identifier.split(id);
+        String base = parts.base();
+        String sub = parts.subscript();
         String b = GREEK.getOrDefault(base, base.length() == 1 ? base : "\\mathit{" + escape(base) + "}");
         if (sub == null) return b;
         String s = GREEK.getOrDefault(sub, sub.chars().allMatch(Character::isDigit) ? sub : "\\mathrm{" + escape(sub) + "}");
@@ -64,19 +55,6 @@ public final class LatexPrinter {
 
     public static String unit(String text) {
         return "\\,\\mathrm{" + escape(text).replace(" ", "\\,").replace("*", "\\,") + "}";
-    }
-
-    private static int precedence(Expr e) {
-        if (e instanceof Expr.Binary b) {
-            return switch (b.op()) {
-                case ADD, SUB -> 1;
-                case MUL, DIV -> 2;
-                case POW -> 4;
-            };
-        }
-        if (e instanceof Expr.Neg) return 3;
-        if (e instanceof Expr.If) return 0;
-        return 5;
     }
 
     private static String print(Expr e, int outer) {
@@ -106,7 +84,7 @@ public final class LatexPrinter {
             };
             if (b.op() == Expr.BinaryOp.DIV) return s;
         }
-        return precedence(e) < outer ? "\\left(" + s + "\\right)" : s;
+        return ExprPrinter.precedence(e) < outer ? "\\left(" + s + "\\right)" : s;
     }
 
     private static boolean needsDot(Expr right) {

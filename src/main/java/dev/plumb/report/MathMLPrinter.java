@@ -1,6 +1,8 @@
 package dev.plumb.report;
 
 import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Identifier;
 import java.util.Locale;
 import java.util.Map;
 import java.util.stream.Collectors;
@@ -39,20 +41,9 @@ public final class MathMLPrinter {
     }
 
     public static String name(String id) {
-        String base = id;
-        String sub = null;
-        int us = id.indexOf('_');
-        if (us > 0) {
-            base = id.substring(0, us);
-            sub = id.substring(us + 1);
-        } else {
-            int i = id.length();
-            while (i > 1 && Character.isDigit(id.charAt(i - 1))) i--;
-            if (i < id.length()) {
-                base = id.substring(0, i);
-                sub = id.substring(i);
-            }
-        }
+        Identifier.Parts parts = Identifier.split(id);
+        String base = parts.base();
+        String sub = parts.subscript();
         String b = "<mi>" + esc(GREEK.getOrDefault(base, base)) + "</mi>";
         if (sub == null) return b;
         String s = sub.chars().allMatch(Character::isDigit) ? "<mn>" + sub + "</mn>"
@@ -67,19 +58,6 @@ public final class MathMLPrinter {
         String mantissa = t.substring(0, e);
         String exp = t.substring(e + 1).replaceFirst("^\\+", "");
         return "<mrow><mn>" + esc(mantissa) + "</mn><mo>×</mo><msup><mn>10</mn><mn>" + esc(exp) + "</mn></msup></mrow>";
-    }
-
-    private static int precedence(Expr e) {
-        if (e instanceof Expr.Binary b) {
-            return switch (b.op()) {
-                case ADD, SUB -> 1;
-                case MUL, DIV -> 2;
-                case POW -> 4;
-            };
-        }
-        if (e instanceof Expr.Neg) return 3;
-        if (e instanceof Expr.If) return 0;
-        return 5;
     }
 
     private static String print(Expr e, int outer) {
@@ -111,7 +89,7 @@ public final class MathMLPrinter {
             };
             if (b.op() == Expr.BinaryOp.DIV) return s;
         }
-        return precedence(e) < outer ? "<mrow><mo>(</mo>" + s + "<mo>)</mo></mrow>" : s;
+        return ExprPrinter.precedence(e) < outer ? "<mrow><mo>(</mo>" + s + "<mo>)</mo></mrow>" : s;
     }
 
     private static String call(Expr.Call c) {
