@@ -20,6 +20,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.function.Supplier;
 import dev.plumb.lang.Expr;
 import dev.plumb.numeric.CaseResult;
 import dev.plumb.numeric.NumericEngine;
@@ -74,24 +75,64 @@ public final class Analyzer {
         List<String> scales = List.of();
         List<Analysis.CaseTable> tables = new ArrayList<>();
         if (!diagnostics.hasInputErrors()) {
-            SymbolicResult symbolic = SymbolicEngine.analyze(model, new SymbolicOptions(options.symbolicTimeoutSeconds()));
-            checks.addAll(symbolic.checks());
-            notes.addAll(symbolic.notes());
             Map<String, Expr> closedForms = new LinkedHashMap<>();
-            for (Derived d : symbolic.derived()) {
-                closedForms.put(d.expr(), d.closedForm());
-                derived.add(new Analysis.DerivedForm(d.expr(), d.printed(), UnitCatalog.siName(d.dimension()), d.closedForm(),
-                        d.trail().stream().map(t -> new Analysis.TrailEntry(t.action(), t.result())).toList()));
+            SymbolicResult symbolic = guarded("symbolic", notes, () -> SymbolicEngine.analyze(model,
+                    new SymbolicOptions(options.symbolicTimeoutSeconds())));
+            if (symbolic != null) {
+                checks.addAll(symbolic.checks());
+                notes.addAll(symbolic.notes());
+                for (Derived d : symbolic.derived()) {
+                    closedForms.put(d.expr(), d.closedForm());
+                    derived.add(new Analysis.DerivedForm(d.expr(), d.printed(), UnitCatalog.siName(d.dimension()), d.closedForm(),
+                            d.trail().stream().map(t -> new Analysis.TrailEntry(t.action(), t.result())).toList()));
+                }
+            } else {
+                undecided(model, checks, "the symbolic engine stopped on this file");
             }
             CaseAnalysis cases = new CaseAnalysis(model, closedForms, notes);
-            NumericResult numeric = NumericEngine.run(model, closedForms, NumericOptions.defaults());
-            checks.addAll(numeric.checks());
-            notes.addAll(numeric.notes());
-            for (CaseResult c : numeric.cases()) tables.add(cases.table(c, options.profiles()));
-            checks.addAll(new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
-            scales = ScaleLength.find(model).stream().map(ScaleLength::describe).toList();
+            NumericResult numeric = guarded("numeric", notes, () -> NumericEngine.run(model, closedForms, NumericOptions.defaults()));
+            if (numeric != null) {
+                checks.addAll(numeric.checks());
+                notes.addAll(numeric.notes());
+                for (CaseResult c : numeric.cases()) {
+                    Analysis.CaseTable t = guarded("case table", notes, () -> cases.table(c, options.profiles()));
+                    if (t != null) tables.add(t);
+                }
+            } else {
+                for (Stmt.Expect e : model.expects()) {
+                    checks.add(Check.of("expect", label(e.label(), e.span()), e.span(), Status.UNDECIDED,
+                            "the numeric engine stopped on this file"));
+                }
+            }
+            List<Check> scaling = guarded("scaling", notes, () -> new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
+            if (scaling != null) checks.addAll(scaling);
+            List<String> found = guarded("scale lengths", notes, () -> ScaleLength.find(model).stream().map(ScaleLength::describe).toList());
+            if (found != null) scales = found;
         }
         return new Analysis(source, model, model.diagnostics(), checks, derived, tables, scales, notes);
+    }
+
+    /**
+     * Runs one stage so that a defect inside it costs only that stage's verdicts: the run goes on,
+     * and the note says which stage stopped and why (no stack trace reaches the user).
+     */
+    private static <T> T guarded(String stage, List<String> notes, Supplier<T> work) {
+        try {
+            return work.get();
+        } catch (RuntimeException | StackOverflowError | OutOfMemoryError e) {
+            notes.add("the " + stage + " stage stopped on this file (" + e.getClass().getSimpleName()
+                    + (e.getMessage() == null ? "" : ": " + e.getMessage()) + "); its checks are undecided. Please report this.");
+            return null;
+        }
+    }
+
+    private static void undecided(Model model, List<Check> checks, String why) {
+        for (Stmt.Step s : model.steps()) checks.add(Check.of("step", label(s.label(), s.span()), s.span(), Status.UNDECIDED, why));
+        for (Stmt.Claim c : model.claims()) checks.add(Check.of("claim", label(c.label(), c.span()), c.span(), Status.UNDECIDED, why));
+    }
+
+    private static String label(Stmt.Label l, Span span) {
+        return l.present() ? l.name() : "line " + span.line();
     }
 
     private static Analysis unreadable(Path path, String why) {
