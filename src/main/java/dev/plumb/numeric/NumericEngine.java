@@ -40,9 +40,27 @@ public final class NumericEngine {
     static Solution solve(Model model, Map<String, Double> parameterValues, NumericOptions options, Map<String, Expr> closedForms)
             throws SolveException {
         if (model.hasErrors()) throw new SolveException(Span.NONE, "the file has errors; it is not integrated");
+        if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) return new Algebraic(model, parameterValues);
         Formulation form = Formulation.of(model);
         CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms);
         return new SolvedCase(problem, Shooting.solve(problem));
+    }
+
+    /** A file with no unknown: every quantity is a formula in the parameters, evaluated directly. */
+    private record Algebraic(Model model, Map<String, Double> values) implements Solution {
+        @Override
+        public double evaluate(Expr quantity) throws SolveException {
+            try {
+                return new ConstantEvaluator(n -> model.symbols().get(n), values).evaluate(quantity);
+            } catch (ConstantEvaluator.NotConstant e) {
+                throw new SolveException(e.where.span(), e.getMessage());
+            }
+        }
+
+        @Override
+        public String method() {
+            return "no unknowns: evaluated directly from the parameters";
+        }
     }
 
     /** A quantity of the comparison table with the statement it comes from. */

@@ -36,6 +36,7 @@ public final class TextReport {
             }
         }
         for (Analysis.CaseTable t : a.cases()) {
+            if (t.rows().isEmpty() && t.failure() == null && t.profiles().isEmpty()) continue;
             out.append('\n').append("  case ").append(style.bold(t.label()));
             if (t.method() != null) out.append(style.dim("  (" + t.method() + ")"));
             out.append('\n');
