@@ -46,6 +46,10 @@ public final class CheckCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        if (!(symbolicTimeout > 0) || symbolicTimeout > 3600) {
+            throw new CommandLine.ParameterException(spec.commandLine(),
+                    "--symbolic-timeout must be a number of seconds above 0 and at most 3600, found " + symbolicTimeout);
+        }
         PrintWriter out = spec.commandLine().getOut();
         SymbolicEngine.warmUp();
         Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout, false));

@@ -57,6 +57,10 @@ public final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        if (!(symbolicTimeout > 0) || symbolicTimeout > 3600) {
+            throw new CommandLine.ParameterException(spec.commandLine(),
+                    "--symbolic-timeout must be a number of seconds above 0 and at most 3600, found " + symbolicTimeout);
+        }
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter stdout = spec.commandLine().getOut();
         Analysis a = new Analyzer(new Analyzer.Options(symbolicTimeout, true)).analyze(file);
