@@ -63,7 +63,8 @@ public final class Checker {
                 : Optional.of((Symbol.Coordinate) symbols.get(coord.name()));
         String title = program.all(Stmt.Title.class).stream().map(Stmt.Title::text).findFirst().orElse(program.source().path());
         return new Model(program, title, Collections.unmodifiableMap(symbols), coordinate,
-                program.all(Stmt.Relation.class), program.all(Stmt.Boundary.class), program.all(Stmt.Step.class),
+                program.all(Stmt.Relation.class), BoundaryOrientation.orient(program.all(Stmt.Boundary.class), unknownNames()),
+                program.all(Stmt.Step.class),
                 program.all(Stmt.Claim.class), program.all(Stmt.Scaling.class), cases, program.all(Stmt.Expect.class),
                 program.all(Stmt.Show.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
     }
@@ -384,6 +385,12 @@ public final class Checker {
         for (String name : Constants.all().keySet()) {
             if (used.contains(name) && !out.containsKey(name)) out.put(name, new Symbol.Builtin(Constants.lookup(name).get()));
         }
+        return out;
+    }
+
+    private Set<String> unknownNames() {
+        Set<String> out = new HashSet<>();
+        for (Stmt s : declarations.values()) if (s instanceof Stmt.Unknown u) out.add(u.name());
         return out;
     }
 
