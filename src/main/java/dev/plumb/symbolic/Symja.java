@@ -65,8 +65,10 @@ final class Symja {
                 Symja s = new Symja(30);
                 ISymbol x = F.Dummy("plumbwarm");
                 s.eval(F.Simplify(F.Integrate(F.Times(x, F.Sin(x)), x)));
-            } catch (RuntimeException ignored) {
-                // A failed warm-up only costs time later.
+            } catch (RuntimeException | LinkageError ignored) {
+                // A failed warm-up only costs time later. When the run ends before the warm-up does
+                // (a file with a syntax error), Symja's static set-up fails with an Error as the JVM
+                // shuts down; the default handler would print its stack trace on the user's screen.
             }
         }, "plumb-symja-warm-up");
         warmer.setDaemon(true);
