@@ -62,10 +62,11 @@ public final class Checker {
         Optional<Symbol.Coordinate> coordinate = coord == null ? Optional.empty()
                 : Optional.of((Symbol.Coordinate) symbols.get(coord.name()));
         String title = program.all(Stmt.Title.class).stream().map(Stmt.Title::text).findFirst().orElse(program.source().path());
+        Orientation sides = new Orientation(unknownNames());
         return new Model(program, title, Collections.unmodifiableMap(symbols), coordinate,
-                program.all(Stmt.Relation.class), BoundaryOrientation.orient(program.all(Stmt.Boundary.class), unknownNames()),
-                program.all(Stmt.Step.class),
-                program.all(Stmt.Claim.class), program.all(Stmt.Scaling.class), cases, program.all(Stmt.Expect.class),
+                program.all(Stmt.Relation.class), sides.boundaries(program.all(Stmt.Boundary.class)),
+                sides.steps(program.all(Stmt.Step.class)), sides.claims(program.all(Stmt.Claim.class)),
+                sides.scalings(program.all(Stmt.Scaling.class)), cases, program.all(Stmt.Expect.class),
                 program.all(Stmt.Show.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
     }
 
