@@ -103,7 +103,9 @@ final class Symja {
         try {
             long whole = Math.max(1, Math.round(seconds));
             result = evaluator.eval(F.TimeConstrained(e, F.ZZ(whole), timedOut));
-        } catch (RuntimeException | StackOverflowError ex) {
+        } catch (RuntimeException | Error ex) {
+            // Not only StackOverflowError: Symja's own assertions (under -ea) and Guava's time limiter
+            // (ExecutionError) throw Errors from inside an evaluation, and the numeric side can still answer.
             throw new Failure("the computer algebra system gave up (" + ex.getClass().getSimpleName() + ")", false);
         }
         if (result == timedOut || result.has(timedOut)) {
