@@ -31,7 +31,13 @@ public final class Main implements Runnable {
             err.println("try 'plumb " + (ex.getCommandLine() == cli ? "" : ex.getCommandLine().getCommandName() + " ") + "--help'");
             return 2;
         });
-        return cli.execute(args);
+        try {
+            return cli.execute(args);
+        } catch (RuntimeException | Error ex) {
+            // picocli hands only Exceptions to the handler above; an Error would reach the user as a stack trace.
+            err.println("plumb: internal error: " + ex + " (please report this with the input file)");
+            return 3;
+        }
     }
 
     @Override

@@ -33,6 +33,8 @@ public final class Checker {
     private final Map<String, Symbol.FixedParam> fixed = new HashMap<>();
     private final Set<String> evaluating = new HashSet<>();
     private final List<Check> unitChecks = new ArrayList<>();
+    /** The unit of each check that holds, by its index in unitChecks: described once all lines are inferred. */
+    private final Map<Integer, DimForm> heldUnits = new HashMap<>();
     private Stmt.Coord coord;
     private UnitInference inference;
 
@@ -53,6 +55,7 @@ public final class Checker {
         inference = new UnitInference(declarations, coord == null ? null : coord.name(), constants, diagnostics);
         checkDeclarations();
         for (Stmt s : program.statements()) statement(s);
+        describeHeldUnits();
         List<CaseValues> cases = cases();
         checkExpectCases();
         Map<String, Symbol> symbols = symbols();
@@ -62,9 +65,11 @@ public final class Checker {
         Optional<Symbol.Coordinate> coordinate = coord == null ? Optional.empty()
                 : Optional.of((Symbol.Coordinate) symbols.get(coord.name()));
         String title = program.all(Stmt.Title.class).stream().map(Stmt.Title::text).findFirst().orElse(program.source().path());
+        Orientation sides = new Orientation(unknownNames());
         return new Model(program, title, Collections.unmodifiableMap(symbols), coordinate,
-                program.all(Stmt.Relation.class), program.all(Stmt.Boundary.class), program.all(Stmt.Step.class),
-                program.all(Stmt.Claim.class), program.all(Stmt.Scaling.class), cases, program.all(Stmt.Expect.class),
+                program.all(Stmt.Relation.class), sides.boundaries(program.all(Stmt.Boundary.class)),
+                sides.steps(program.all(Stmt.Step.class)), sides.claims(program.all(Stmt.Claim.class)),
+                sides.scalings(program.all(Stmt.Scaling.class)), cases, program.all(Stmt.Expect.class),
                 program.all(Stmt.Show.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
     }
 
@@ -260,8 +265,18 @@ public final class Checker {
                 ? "both sides in " + inference.solver.describe(l)
                 : differ ? "left side " + inference.solver.describe(l) + ", right side " + inference.solver.describe(r)
                 : "a unit error inside the " + what;
+        if (status == Status.HOLDS) heldUnits.put(unitChecks.size(), l);
         unitChecks.add(Check.of("units", label.present() ? label.name() : "line " + span.line(), span, status, message)
                 .with("statement", what));
+    }
+
+    /** A line checked early may mention a unit that only a later line infers (theta from theta(0) = 1). */
+    private void describeHeldUnits() {
+        heldUnits.forEach((i, form) -> {
+            Check c = unitChecks.get(i);
+            unitChecks.set(i, new Check(c.kind(), c.label(), c.span(), c.status(), "both sides in " + inference.solver.describe(form),
+                    c.factor(), c.extra()));
+        });
     }
 
     private static boolean isPlainUnknown(Expr e) {
@@ -279,6 +294,7 @@ public final class Checker {
         } else if (!(e.tolerance().relative() >= 0)) {
             diagnostics.error(e.tolerance().span(), "a tolerance must not be negative");
         }
+        if (!differ) heldUnits.put(unitChecks.size(), l);
         unitChecks.add(Check.of("units", labelOf(e.label(), e.span()), e.span(), differ ? Status.FAILS : Status.HOLDS,
                 differ ? "the expected value has another unit" : "both sides in " + inference.solver.describe(l)).with("statement", "expect"));
     }
@@ -384,6 +400,12 @@ public final class Checker {
         for (String name : Constants.all().keySet()) {
             if (used.contains(name) && !out.containsKey(name)) out.put(name, new Symbol.Builtin(Constants.lookup(name).get()));
         }
+        return out;
+    }
+
+    private Set<String> unknownNames() {
+        Set<String> out = new HashSet<>();
+        for (Stmt s : declarations.values()) if (s instanceof Stmt.Unknown u) out.add(u.name());
         return out;
     }
 

@@ -44,6 +44,11 @@ public final class DerivationDocument {
         scaling();
         cases();
         checks("Expectations", "expect");
+        if (!a.notes().isEmpty()) {
+            // The notes say what could not be done (a closed form not found, a plot not drawn) and why.
+            m.heading(2, "Notes");
+            m.bullets(a.notes());
+        }
         sources(model);
         m.heading(2, "Caution");
         m.paragraph("These results are estimates for checking derivations. Where they could be applied to something that can "

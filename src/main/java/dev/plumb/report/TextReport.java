@@ -44,12 +44,15 @@ public final class TextReport {
                 out.append("    ").append(style.red("not solved: ")).append(t.failure()).append('\n');
                 continue;
             }
-            out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n",
-                    "quantity", "closed form", "numeric", "rel. diff", "est. error", "unit"));
+            if (t.rows().isEmpty()) continue;
+            // The quantity column is as wide as its longest entry, so long expressions keep the columns aligned.
+            int width = Math.max(14, t.rows().stream().mapToInt(r -> r.expr().length()).max().orElse(0));
+            String row = "    %-" + width + "s %-14s %-14s %-10s %-10s %s%n";
+            out.append(String.format(Locale.ROOT, row, "quantity", "closed form", "numeric", "rel. diff", "est. error", "unit"));
             for (Analysis.Row r : t.rows()) {
                 double f = r.shownUnit() != null ? r.shownFactor() : 1.0;
                 String unit = r.shownUnit() != null ? r.shownUnit() : r.unit();
-                out.append(String.format(Locale.ROOT, "    %-14s %-14s %-14s %-10s %-10s %s%n", r.expr(),
+                out.append(String.format(Locale.ROOT, row, r.expr(),
                         num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), relative(r.errorEstimate(), r.numeric()), unit));
                 if (!r.sensitivities().isEmpty()) {
                     StringBuilder sb = new StringBuilder();

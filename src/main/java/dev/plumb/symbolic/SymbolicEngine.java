@@ -8,6 +8,7 @@ import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import dev.plumb.units.Dimension;
 import java.util.ArrayList;
+import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -65,9 +66,12 @@ public final class SymbolicEngine {
 
         Verification verification = new Verification(symja, table, assumptions, found.profiles(), constants);
         List<Check> checks = new ArrayList<>();
+        // In file order, but as the model has them: with the unknown side on the left.
+        Iterator<Stmt.Step> steps = model.steps().iterator();
+        Iterator<Stmt.Claim> claims = model.claims().iterator();
         for (Stmt s : model.program().statements()) {
-            if (s instanceof Stmt.Step st) checks.add(verification.step(st, model.unitChecks()));
-            if (s instanceof Stmt.Claim c) checks.add(verification.claim(c));
+            if (s instanceof Stmt.Step) checks.add(verification.step(steps.next(), model.unitChecks()));
+            if (s instanceof Stmt.Claim) checks.add(verification.claim(claims.next()));
         }
         return new SymbolicResult(checks, derived, profiles, constantForms, notes);
     }

@@ -65,8 +65,10 @@ final class Symja {
                 Symja s = new Symja(30);
                 ISymbol x = F.Dummy("plumbwarm");
                 s.eval(F.Simplify(F.Integrate(F.Times(x, F.Sin(x)), x)));
-            } catch (RuntimeException ignored) {
-                // A failed warm-up only costs time later.
+            } catch (RuntimeException | LinkageError ignored) {
+                // A failed warm-up only costs time later. When the run ends before the warm-up does
+                // (a file with a syntax error), Symja's static set-up fails with an Error as the JVM
+                // shuts down; the default handler would print its stack trace on the user's screen.
             }
         }, "plumb-symja-warm-up");
         warmer.setDaemon(true);
@@ -101,7 +103,9 @@ final class Symja {
         try {
             long whole = Math.max(1, Math.round(seconds));
             result = evaluator.eval(F.TimeConstrained(e, F.ZZ(whole), timedOut));
-        } catch (RuntimeException | StackOverflowError ex) {
+        } catch (RuntimeException | Error ex) {
+            // Not only StackOverflowError: Symja's own assertions (under -ea) and Guava's time limiter
+            // (ExecutionError) throw Errors from inside an evaluation, and the numeric side can still answer.
             throw new Failure("the computer algebra system gave up (" + ex.getClass().getSimpleName() + ")", false);
         }
         if (result == timedOut || result.has(timedOut)) {
