@@ -113,13 +113,19 @@ public final class Checker {
         }
     }
 
+    /**
+     * Labels must be unique within a family of statements that a reader refers to together: the
+     * equations (relations, boundaries), the derivation (steps, claims), scaling claims,
+     * expectations and cases. A boundary and an expectation may share a label such as "centre".
+     */
     private void checkLabels() {
-        Map<String, Span> seen = new HashMap<>();
-        Map<String, Span> caseNames = new HashMap<>();
+        Map<String, Map<String, Span>> families = new HashMap<>();
         for (Stmt s : program.statements()) {
             Stmt.Label label = labelOf(s);
             if (!label.present()) continue;
-            Map<String, Span> space = s instanceof Stmt.Case ? caseNames : seen;
+            String family = s instanceof Stmt.Relation || s instanceof Stmt.Boundary ? "equation"
+                    : s instanceof Stmt.Step || s instanceof Stmt.Claim ? "derivation" : s.getClass().getSimpleName();
+            Map<String, Span> space = families.computeIfAbsent(family, k -> new HashMap<>());
             Span first = space.putIfAbsent(label.name(), label.span());
             if (first != null) {
                 diagnostics.error(label.span(), "the label '" + label.name() + "' is used twice; the first use is at line " + first.line());

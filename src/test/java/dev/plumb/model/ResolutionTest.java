@@ -66,6 +66,12 @@ class ResolutionTest {
     }
 
     @Test
+    void aBoundaryAndAnExpectationMayShareALabel() {
+        String text = SPHERE + "boundary centre: P(R) = 0\ncase a: M = 1 [kg], R = 1 [m]\nexpect centre: P(0) at a = 1 [Pa] within 1%\n";
+        assertTrue(Checking.of(text).model.diagnostics().stream().noneMatch(d -> d.message().contains("used twice")));
+    }
+
+    @Test
     void duplicateLabel() {
         String text = SPHERE + "step s1: P'(r) = -G*m(r)*rho/r^2\nclaim s1: P(0) = 0\n";
         Diagnostic d = Checking.of(text).onlyError("the label 's1' is used twice; the first use is at line 7");
