@@ -14,7 +14,9 @@ import dev.plumb.numeric.QuantityRow;
 import dev.plumb.numeric.Solution;
 import dev.plumb.numeric.SolveException;
 import dev.plumb.report.Analysis;
+import dev.plumb.scaling.Monomial;
 import dev.plumb.scaling.Sweep;
+import dev.plumb.units.Rational;
 import dev.plumb.units.UnitCatalog;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -62,6 +64,20 @@ final class CaseAnalysis {
         return Optional.of(p -> NumericEngine.solve(model, p, SWEEP_OPTIONS).evaluate(e));
     }
 
+    /**
+     * For a closed form that is a power law, ∂ln Q/∂ln p is its exponent of p, exactly; other
+     * quantities get central differences (of the closed form when there is one, else of solves).
+     */
+    private Optional<Map<String, Double>> exactSensitivities(String quantity, List<String> free) {
+        Expr form = closedForms.get(quantity);
+        if (form == null) return Optional.empty();
+        Optional<Map<String, Rational>> e = new Monomial(n -> model.symbols().get(n)).exponents(form);
+        if (e.isEmpty()) return Optional.empty();
+        Map<String, Double> out = new LinkedHashMap<>();
+        for (String p : free) out.put(p, e.get().getOrDefault(p, Rational.ZERO).toDouble());
+        return Optional.of(out);
+    }
+
     Analysis.CaseTable table(CaseResult result, boolean profiles) {
         CaseValues values = model.caseNamed(result.label()).orElse(null);
         List<Analysis.Row> rows = new ArrayList<>();
@@ -74,7 +90,8 @@ final class CaseAnalysis {
                 if (f.isPresent()) {
                     List<String> free = model.freeParams().stream().map(Symbol.FreeParam::name).toList();
                     try {
-                        sens = Sweep.sensitivities(f.get(), values.values(), free, 1e-4);
+                        sens = exactSensitivities(q.expr(), free).orElse(null);
+                        if (sens == null) sens = Sweep.sensitivities(f.get(), values.values(), free, 1e-4);
                         if (!values.uncertainties().isEmpty()) {
                             boolean closed = closedForms.containsKey(q.expr()) || model.profiles().isEmpty();
                             int samples = closed ? 20_000 : 400;
