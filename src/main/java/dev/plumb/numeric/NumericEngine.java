@@ -42,8 +42,30 @@ public final class NumericEngine {
         if (model.hasErrors()) throw new SolveException(Span.NONE, "the file has errors; it is not integrated");
         if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) return new Algebraic(model, parameterValues);
         Formulation form = Formulation.of(model);
-        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms);
-        return new SolvedCase(problem, Shooting.solve(problem));
+        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms, true, null);
+        try {
+            return new SolvedCase(problem, Shooting.solve(problem));
+        } catch (SolveException byEvent) {
+            if (!problem.fixedSurface) throw byEvent;
+            // The surface was sought as an event near the fixed end; a zero the profile only touches there
+            // is not an event, so the same boundary is tried as a plain condition at the end.
+            CaseProblem plain = new CaseProblem(form, parameterValues, options, closedForms, false, null);
+            try {
+                return new SolvedCase(plain, Shooting.solve(plain));
+            } catch (SolveException alsoPlain) {
+                throw new SolveException(byEvent.span(), byEvent.getMessage() + "; with " + CaseProblem.describe(problem.surfaceBoundary)
+                        + " as a plain condition at the end of the interval instead: " + alsoPlain.getMessage());
+            }
+        }
+    }
+
+    /**
+     * The same case solved again at other options, starting from a solved case's unknowns and treating
+     * its boundaries the same way (for an error estimate at a tighter tolerance).
+     */
+    static Solution resolve(Solution first, NumericOptions options) throws SolveException {
+        if (first instanceof SolvedCase sc) return sc.again(options);
+        return first;
     }
 
     /** A file with no unknown: every quantity is a formula in the parameters, evaluated directly. */
@@ -105,7 +127,7 @@ public final class NumericEngine {
             Solution tight = null;
             if (options.errorEstimate()) {
                 try {
-                    tight = solve(model, c.values(), options.tighter(), closedForms);
+                    tight = resolve(solution, options.tighter());
                 } catch (SolveException ex) {
                     notes.add("case '" + c.label() + "': the second solve at a tighter tolerance failed, so no error estimate: "
                             + ex.getMessage());
