@@ -99,7 +99,7 @@ final class CaseAnalysis {
                             unc = new Analysis.Uncertainty(u.firstOrder(), u.monteCarlo(), u.samplingError(), u.samples(), u.seed());
                         }
                     } catch (Exception ex) {
-                        notes.add("case '" + result.label() + "': sensitivities of " + q.expr() + " not computed: " + ex.getMessage());
+                        notes.add(casePrefix(result.label()) + "sensitivities of " + q.expr() + " not computed: " + ex.getMessage());
                     }
                 }
             }
@@ -140,8 +140,13 @@ final class CaseAnalysis {
                         UnitCatalog.siName(p.dimension()), x, y, c));
             }
         } catch (SolveException | ConstantEvaluator.NotConstant ex) {
-            notes.add("case '" + label + "': profiles not sampled for plotting: " + ex.getMessage());
+            notes.add(casePrefix(label) + "profiles not sampled for plotting: " + ex.getMessage());
         }
         return out;
+    }
+
+    /** How a note about a case begins; a file without free parameters has one implicit case, and no label is named. */
+    private String casePrefix(String label) {
+        return model.cases().isEmpty() ? "" : "case '" + label + "': ";
     }
 }

@@ -26,6 +26,13 @@ final class CaseProblem {
     /** How a condition's mismatch is measured: as a log ratio, or as a difference over a scale. */
     record Condition(Stmt.Boundary boundary, boolean log, double scale) { }
 
+    /**
+     * How far past a fixed end b a trial may run looking for the surface, in units of the interval: far
+     * enough for Newton's log-radius mismatch to see where it lies, but bounded, so that a trial whose
+     * profile never reaches zero fails in one interval's worth of steps rather than ten thousand.
+     */
+    static final double FIXED_SURFACE_REACH = 4.0;
+
     final Formulation form;
     final Map<String, Double> values;
     final NumericOptions options;
@@ -40,11 +47,28 @@ final class CaseProblem {
     final List<Condition> conditions = new ArrayList<>();
     final List<Unknown> unknowns = new ArrayList<>();
     final double[] scale;
+    final boolean surfaceEvents;
+    final Map<String, Expr> closedForms;
+    private final double[] start;
     private final ConstantEvaluator constants;
 
     CaseProblem(Formulation form, Map<String, Double> values, NumericOptions options, Map<String, Expr> closedForms)
             throws SolveException {
+        this(form, values, options, closedForms, true, null);
+    }
+
+    /**
+     * @param surfaceEvents whether a condition P(b) = 0 at the fixed end b may be read as "the surface
+     *                      lies at b" (found as an event) when the relations depend on P; false keeps it a
+     *                      plain condition at b
+     * @param start         the shooting unknowns to start from (a previous solve's), or null for the guesses
+     */
+    CaseProblem(Formulation form, Map<String, Double> values, NumericOptions options, Map<String, Expr> closedForms,
+                boolean surfaceEvents, double[] start) throws SolveException {
         this.form = form;
+        this.surfaceEvents = surfaceEvents;
+        this.closedForms = closedForms;
+        this.start = start == null ? null : start.clone();
         this.values = values;
         this.options = options;
         this.constants = new ConstantEvaluator(n -> form.model.symbols().get(n), values);
@@ -119,8 +143,13 @@ final class CaseProblem {
             } else if (surf == null && otherKnown && arg != null && isFreeEnd(arg)) {
                 surf = new Integration.Surface(comp, constant(other, "the surface value"), ExprPrinter.print(lhs));
                 surfB = bd;
-            } else if (surf == null && otherKnown && arg != null && form.freeEnd == null && comp == form.base[componentProfile(comp)]
+            } else if (surfaceEvents && surf == null && otherKnown && arg != null && form.freeEnd == null
+                    && comp == form.base[componentProfile(comp)] && system.dependsOnComponent(comp)
                     && !Formulation.mentionsUnknown(form.model, arg) && point(arg) == b && constant(other, "the boundary value") == 0.0) {
+                // Only when the relations depend on the component can they be undefined past its zero (a
+                // polytrope's P^(n/(n+1))), so that a plain condition at b could not be integrated to; otherwise
+                // P(b) is the start value plus a fixed integral, and the plain condition is well posed even
+                // where P only touches zero at b (a density falling linearly to zero gives P ~ (b - r)^2).
                 surf = new Integration.Surface(comp, 0.0, ExprPrinter.print(lhs));
                 surfB = bd;
                 fixedSurf = true;
@@ -136,7 +165,7 @@ final class CaseProblem {
         surface = surf;
         surfaceBoundary = surfB;
         fixedSurface = fixedSurf;
-        limit = Double.isNaN(b) ? a + 1e4 * scaleX : fixedSurf ? a + 1e4 * (b - a) : b;
+        limit = Double.isNaN(b) ? a + 1e4 * scaleX : fixedSurf ? a + FIXED_SURFACE_REACH * (b - a) : b;
 
         scale = new double[form.stateSize];
         String from = ExprPrinter.print(coord.from());
@@ -314,6 +343,7 @@ final class CaseProblem {
     }
 
     double[] initialVector() {
+        if (start != null && start.length == unknowns.size()) return start.clone();
         double[] z = new double[unknowns.size()];
         for (int k = 0; k < z.length; k++) {
             Unknown u = unknowns.get(k);

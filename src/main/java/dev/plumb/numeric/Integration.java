@@ -63,9 +63,12 @@ final class Integration {
             lockBranches(0.5 * (x + next));
             Stop s = segment(x, y, next, surface);
             steps += s.steps();
-            x = s.x();
             y = s.y();
-            if (s.atSurface()) return new Stop(x, y, true, steps, s.byApproach());
+            if (s.atSurface()) return new Stop(s.x(), y, true, steps, s.byApproach());
+            // The integrator ends a span within an ulp of where it was asked to; taken as is, the rest would
+            // be a span too short to integrate (Commons Math refuses it as "too small"), so the segment's end
+            // is taken to be the point asked for.
+            x = next;
         }
         freeBranches();
         return new Stop(x, y, false, steps);
@@ -93,6 +96,7 @@ final class Integration {
 
     private Stop segment(double x0, double[] y0, double x1, Surface surface) throws SolveException {
         double span = Math.abs(x1 - x0);
+        if (span <= 1e-11 * Math.max(Math.abs(x0), Math.abs(x1))) return shortSegment(x0, y0, x1, surface);
         DormandPrince853Integrator dp = new Guarded(system, Math.min(minStep, span * 1e-3), span, absTol, relTol);
         system.takeNonFinite();
         dp.setMaxEvaluations(2_000_000);
@@ -145,6 +149,30 @@ final class Integration {
                     + system.form.coordinate.name() + " = " + String.format("%.6g", x0) + " and " + String.format("%.6g", last[0])
                     + " (tolerance " + relTol[0] + "): the relations are too stiff here");
         }
+    }
+
+    /**
+     * A span so short beside its coordinate that Commons Math will not integrate it (a point a few ulps
+     * past a recorded state, or a break that close to the start): one explicit midpoint step, whose error
+     * is of the order of the span squared, far below any tolerance.
+     */
+    private Stop shortSegment(double x0, double[] y0, double x1, Surface surface) throws SolveException {
+        double h = x1 - x0;
+        double[] k1 = system.derivatives(x0, y0);
+        double[] mid = y0.clone();
+        for (int i = 0; i < mid.length; i++) mid[i] += 0.5 * h * k1[i];
+        double[] k2 = system.derivatives(x0 + 0.5 * h, mid);
+        double[] y = y0.clone();
+        for (int i = 0; i < y.length; i++) y[i] += h * k2[i];
+        for (double v : y) {
+            if (!Double.isFinite(v)) {
+                throw new SolveException(system.form.coordinate.span(), "the relations are not finite between "
+                        + system.form.coordinate.name() + " = " + String.format("%.12g", x0) + " and " + String.format("%.12g", x1)
+                        + " (state " + describe(y0) + ")");
+            }
+        }
+        boolean crossed = surface != null && (y0[surface.index()] - surface.value()) * (y[surface.index()] - surface.value()) <= 0;
+        return new Stop(x1, y, crossed, 1);
     }
 
     /**

@@ -42,8 +42,30 @@ public final class NumericEngine {
         if (model.hasErrors()) throw new SolveException(Span.NONE, "the file has errors; it is not integrated");
         if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) return new Algebraic(model, parameterValues);
         Formulation form = Formulation.of(model);
-        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms);
-        return new SolvedCase(problem, Shooting.solve(problem));
+        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms, true, null);
+        try {
+            return new SolvedCase(problem, Shooting.solve(problem));
+        } catch (SolveException byEvent) {
+            if (!problem.fixedSurface) throw byEvent;
+            // The surface was sought as an event near the fixed end; a zero the profile only touches there
+            // is not an event, so the same boundary is tried as a plain condition at the end.
+            CaseProblem plain = new CaseProblem(form, parameterValues, options, closedForms, false, null);
+            try {
+                return new SolvedCase(plain, Shooting.solve(plain));
+            } catch (SolveException alsoPlain) {
+                throw new SolveException(byEvent.span(), byEvent.getMessage() + "; with " + CaseProblem.describe(problem.surfaceBoundary)
+                        + " as a plain condition at the end of the interval instead: " + alsoPlain.getMessage());
+            }
+        }
+    }
+
+    /**
+     * The same case solved again at other options, starting from a solved case's unknowns and treating
+     * its boundaries the same way (for an error estimate at a tighter tolerance).
+     */
+    static Solution resolve(Solution first, NumericOptions options) throws SolveException {
+        if (first instanceof SolvedCase sc) return sc.again(options);
+        return first;
     }
 
     /** A file with no unknown: every quantity is a formula in the parameters, evaluated directly. */
@@ -97,17 +119,17 @@ public final class NumericEngine {
                 String failure = where(model, ex.span()) + ex.getMessage();
                 cases.add(new CaseResult(c.label(), null, List.of(), failure));
                 for (Stmt.Expect e : expects) {
-                    checks.add(Check.of("expect", label(e), e.span(), Status.FAILS,
-                            "case '" + c.label() + "' could not be solved numerically: " + ex.getMessage()));
+                    checks.add(Check.of("expect", label(e), e.span(), Status.FAILS, (implicit(model) ? "the relations"
+                            : "case '" + c.label() + "'") + " could not be solved numerically: " + ex.getMessage()));
                 }
                 continue;
             }
             Solution tight = null;
             if (options.errorEstimate()) {
                 try {
-                    tight = solve(model, c.values(), options.tighter(), closedForms);
+                    tight = resolve(solution, options.tighter());
                 } catch (SolveException ex) {
-                    notes.add("case '" + c.label() + "': the second solve at a tighter tolerance failed, so no error estimate: "
+                    notes.add(prefix(model, c.label()) + "the second solve at a tighter tolerance failed, so no error estimate: "
                             + ex.getMessage());
                 }
             }
@@ -125,6 +147,8 @@ public final class NumericEngine {
         Map<String, Wanted> out = new LinkedHashMap<>();
         for (Stmt.Show s : model.shows()) out.putIfAbsent(ExprPrinter.print(s.expr()), new Wanted(s.expr(), s.unit() == null ? null : s.unit().text(), null));
         for (Stmt.Claim c : model.claims()) {
+            // A claim about a whole profile (P(z) = ...) has no single value in a case; the symbolic side checks it.
+            if (dependsOnCoordinate(model, c.equation().lhs(), new java.util.HashSet<>())) continue;
             String key = ExprPrinter.print(c.equation().lhs());
             Wanted old = out.get(key);
             out.put(key, new Wanted(old == null ? c.equation().lhs() : old.expr(), old == null ? null : old.shownUnit(), c.equation().rhs()));
@@ -139,7 +163,7 @@ public final class NumericEngine {
         try {
             numeric = solution.evaluate(w.expr());
         } catch (SolveException ex) {
-            notes.add("case '" + c.label() + "': " + key + " could not be evaluated: " + where(model, ex.span()) + ex.getMessage());
+            notes.add(prefix(model, c.label()) + key + " could not be evaluated: " + where(model, ex.span()) + ex.getMessage());
             numeric = Double.NaN;
         }
         double error = Double.NaN;
@@ -184,13 +208,14 @@ public final class NumericEngine {
         try {
             value = solution.evaluate(e.lhs());
         } catch (SolveException ex) {
-            return Check.of("expect", label, e.span(), Status.FAILS, ExprPrinter.print(e.lhs()) + " could not be evaluated in case '"
-                    + c.label() + "': " + ex.getMessage());
+            return Check.of("expect", label, e.span(), Status.FAILS, ExprPrinter.print(e.lhs()) + " could not be evaluated"
+                    + (implicit(model) ? "" : " in case '" + c.label() + "'") + ": " + ex.getMessage());
         }
         Double expected = constant(model, e.expected(), c.values());
         if (expected == null || expected.isNaN()) {
             return Check.of("expect", label, e.span(), Status.FAILS, "the expected value is not a fixed number");
         }
+        String unit = UnitCatalog.siName(model.dimensionOf(e.lhs()));
         double allowed;
         String tolText;
         if (e.tolerance().isRelative()) {
@@ -199,14 +224,14 @@ public final class NumericEngine {
         } else {
             Double abs = constant(model, e.tolerance().absolute(), c.values());
             allowed = abs == null ? Double.NaN : Math.abs(abs);
-            tolText = String.format("%.6g", allowed) + " SI";
+            tolText = unit.equals("1") ? String.format("%.6g", allowed) + " absolute" : withUnit(String.format("%.6g", allowed), unit);
         }
         double diff = Math.abs(value - expected);
         double rel = expected != 0 ? diff / Math.abs(expected) : diff;
         Status status = diff <= allowed ? Status.HOLDS : Status.FAILS;
-        String unit = UnitCatalog.siName(model.dimensionOf(e.lhs()));
-        String message = String.format("%s at %s: numeric %.10g %s, expected %.10g %s, relative difference %.3g (allowed %s)",
-                ExprPrinter.print(e.lhs()), c.label(), value, unit, expected, unit, rel, tolText);
+        String message = String.format("%s%s: numeric %s, expected %s, relative difference %.3g (allowed %s)",
+                ExprPrinter.print(e.lhs()), implicit(model) ? "" : " at " + c.label(), withUnit(String.format("%.10g", value), unit),
+                withUnit(String.format("%.10g", expected), unit), rel, tolText);
         Check check = Check.of("expect", label, e.span(), status, message)
                 .with("case", c.label()).with("numeric", value).with("expected", expected).with("rel_diff", rel).with("unit", unit);
         if (tight != null) {
@@ -217,6 +242,35 @@ public final class NumericEngine {
             }
         }
         return check;
+    }
+
+    /** Whether {@code e} names the coordinate freely (not only inside a definition's own parameters). */
+    private static boolean dependsOnCoordinate(Model model, Expr e, java.util.Set<String> visiting) {
+        if (model.coordinate().isEmpty()) return false;
+        String x = model.coordinate().get().name();
+        for (String name : dev.plumb.model.References.names(e)) {
+            if (name.equals(x)) return true;
+            if (model.symbols().get(name) instanceof dev.plumb.model.Symbol.Definition d && d.params().isEmpty() && visiting.add(name)
+                    && dependsOnCoordinate(model, d.body(), visiting)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /** Whether the model's only case is the implicit one of a file without free parameters (its label is not the user's). */
+    private static boolean implicit(Model model) {
+        return model.cases().isEmpty();
+    }
+
+    /** How a note about one case begins: nothing for the implicit case, else the case's label. */
+    private static String prefix(Model model, String label) {
+        return implicit(model) ? "" : "case '" + label + "': ";
+    }
+
+    /** A number with its SI unit; a pure number goes without the "1". */
+    private static String withUnit(String number, String unit) {
+        return unit == null || unit.isEmpty() || unit.equals("1") ? number : number + " " + unit;
     }
 
     private static String label(Stmt.Expect e) {

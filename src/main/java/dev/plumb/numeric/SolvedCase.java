@@ -7,12 +7,20 @@ final class SolvedCase implements Solution {
 
     private final CaseProblem problem;
     private final Trajectory trajectory;
+    private final double[] unknowns;
     private final String method;
 
     SolvedCase(CaseProblem problem, Shooting.Result result) {
         this.problem = problem;
         this.trajectory = result.trajectory();
+        this.unknowns = result.z().clone();
         this.method = describe(problem, result);
+    }
+
+    /** The case solved again at other options, from this solution's unknowns and with its boundaries read the same way. */
+    SolvedCase again(NumericOptions options) throws SolveException {
+        CaseProblem p = new CaseProblem(problem.form, problem.values, options, problem.closedForms, problem.surfaceEvents, unknowns);
+        return new SolvedCase(p, Shooting.solve(p));
     }
 
     @Override

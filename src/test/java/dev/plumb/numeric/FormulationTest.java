@@ -126,6 +126,30 @@ class FormulationTest {
     }
 
     @Test
+    void messagesNameTheUnitAndLeaveWholeProfileClaimsToTheSymbolicSide() {
+        Model m = Models.of("""
+                param H = 8 [km]
+                param P0 = 1 [atm]
+                coord z [m] from 0 to 10 [km]
+                unknown P(z) [Pa]
+                relation hydrostatic: P'(z) = -P(z)/H
+                boundary ground: P(0) = P0
+                claim profile: P(z) = P0*exp(-z/H)
+                expect absolute: P(8 [km]) = 372.75 [hPa] within 5 [Pa]
+                expect ratio: P(8 [km])/P0 = 0.3679 within 1e-4 [1]
+                """);
+        NumericResult r = NumericEngine.run(m, Map.of(), NumericOptions.defaults());
+        // Analytic: P(8 km) = 101325 Pa / e = 37275.38 Pa.
+        String absolute = r.checks().get(0).message(), ratio = r.checks().get(1).message();
+        assertTrue(absolute.startsWith("P(8 [km]): numeric 37275.3") && absolute.contains("(allowed 5.00000 Pa)"), absolute);
+        assertTrue(ratio.contains("(allowed 0.000100000 absolute)") && !ratio.contains(" 1,"), ratio);
+        assertEquals(Status.HOLDS, r.checks().get(1).status(), ratio);
+        CaseResult c = r.cases().get(0);
+        assertTrue(c.quantities().stream().noneMatch(q -> q.expr().equals("P(z)")), c.quantities().toString());
+        assertTrue(r.notes().stream().noneMatch(n -> n.contains("no single value") || n.contains("'fixed'")), r.notes().toString());
+    }
+
+    @Test
     void algebraicUnknownIsRefusedWithAHint() {
         Model m = Models.of("""
                 coord z [m] from 0 to 1 [km]
