@@ -120,7 +120,7 @@ final class ClosedForms {
             String dpx = p + "'(" + table.name(x) + ")";
             Boundary b = boundaryFor(p);
             if (b == null) {
-                notes.add("no boundary condition at a known point fixes the constant of integration of " + px);
+                notes.add("no boundary condition fixes the constant of integration of " + px);
                 return false;
             }
             FirstOrder firstOrder = new FirstOrder(symja, table, assumptions, this);
@@ -260,20 +260,27 @@ final class ClosedForms {
     /** A boundary that gives the profile's value at a point that is known. */
     private record Boundary(String label, Stmt.Boundary statement, IExpr point, IExpr value) { }
 
+    /**
+     * Prefers a point that is known; failing that, a point that is an unknown constant still to be
+     * fixed by another boundary (the surface {@code P(R) = 0} of a planet whose R follows from
+     * {@code m(R) = M}): the closed form then holds that constant until it is known.
+     */
     private Boundary boundaryFor(String p) {
-        for (Stmt.Boundary b : table.model().boundaries()) {
-            if (usedBoundaries.contains(b)) continue;
-            if (!(b.equation().lhs() instanceof dev.plumb.lang.Expr.Call c) || !c.callee().equals(p) || c.order() != 0) continue;
-            try {
-                Translation t = translation();
-                IExpr point = symja.eval(t.plain(c.args().get(0)));
-                IExpr value = symja.eval(t.plain(b.equation().rhs()));
-                if (!t.unknownConstantsIn(point).isEmpty() || !t.unknownConstantsIn(value).isEmpty()) continue;
-                if (t.mentionsUnknownProfile(value) || point.has(table.coordinate, true)) continue;
-                String label = b.label().present() ? b.label().name() : "on line " + b.span().line();
-                return new Boundary(label, b, point, value);
-            } catch (Translation.Untranslatable | Symja.Failure e) {
-                continue;
+        for (boolean atUnknownPoint : new boolean[] {false, true}) {
+            for (Stmt.Boundary b : table.model().boundaries()) {
+                if (usedBoundaries.contains(b)) continue;
+                if (!(b.equation().lhs() instanceof dev.plumb.lang.Expr.Call c) || !c.callee().equals(p) || c.order() != 0) continue;
+                try {
+                    Translation t = translation();
+                    IExpr point = symja.eval(t.plain(c.args().get(0)));
+                    IExpr value = symja.eval(t.plain(b.equation().rhs()));
+                    if (t.unknownConstantsIn(point).isEmpty() == atUnknownPoint || !t.unknownConstantsIn(value).isEmpty()) continue;
+                    if (t.mentionsUnknownProfile(value) || point.has(table.coordinate, true)) continue;
+                    String label = b.label().present() ? b.label().name() : "on line " + b.span().line();
+                    return new Boundary(label, b, point, value);
+                } catch (Translation.Untranslatable | Symja.Failure e) {
+                    continue;
+                }
             }
         }
         return null;
