@@ -37,6 +37,7 @@ final class ClosedForms {
     private final Map<String, IExpr> profiles = new LinkedHashMap<>();
     private final Map<String, List<TrailStep>> trails = new LinkedHashMap<>();
     private final Set<Stmt.Relation> usedRelations = new HashSet<>();
+    private final Set<Stmt.Relation> unitFailures = new HashSet<>();
     private final Set<Stmt.Boundary> usedBoundaries = new HashSet<>();
 
     ClosedForms(Symja symja, SymbolTable table, IExpr assumptions, Map<String, IExpr> constants, List<String> notes) {
@@ -50,6 +51,14 @@ final class ClosedForms {
 
     Found derive() {
         if (table.model().coordinate().isEmpty()) return new Found(profiles, trails, usedBoundaries);
+        for (Stmt.Relation r : table.model().relations()) {
+            // A closed form from a relation whose sides differ in unit would be printed as if it were a result.
+            if (unitsFail(table.model(), r)) {
+                usedRelations.add(r);
+                unitFailures.add(r);
+                notes.add("relation " + name(r) + " has inconsistent units; no closed form is derived from it");
+            }
+        }
         boolean progress = true;
         while (progress && profiles.size() < table.model().profiles().size()) {
             progress = false;
@@ -68,11 +77,17 @@ final class ClosedForms {
             if (!progress) progress = tryKnownSolutions();
         }
         for (Symbol.Profile p : table.model().profiles()) {
-            if (!profiles.containsKey(p.name())) {
+            // After a unit error the note on that relation says why; "the numeric answer is used" would not hold.
+            if (!profiles.containsKey(p.name()) && unitFailures.isEmpty()) {
                 notes.add("no closed form was found for " + p.name() + "(" + table.name(table.coordinate) + "); the numeric answer is used");
             }
         }
         return new Found(profiles, trails, usedBoundaries);
+    }
+
+    /** Whether the unit check of the relation failed. */
+    static boolean unitsFail(dev.plumb.model.Model model, Stmt.Relation r) {
+        return model.unitChecks().stream().anyMatch(u -> u.span().equals(r.span()) && u.status() == dev.plumb.model.Status.FAILS);
     }
 
     private Translation translation() {
@@ -293,7 +308,7 @@ final class ClosedForms {
      */
     private boolean tryKnownSolutions() {
         ISymbol x = table.coordinate;
-        if (!table.model().coordinate().get().dimension().isNone()) return false;
+        if (!table.model().coordinate().get().dimension().isNone() || !unitFailures.isEmpty()) return false;
         List<IExpr[]> library = List.of(
                 new IExpr[] {F.Subtract(F.C1, F.Times(F.QQ(1, 6), F.Sqr(x))), F.$str("Lane–Emden n = 0")},
                 new IExpr[] {F.Divide(F.Sin(x), x), F.$str("Lane–Emden n = 1")},
