@@ -36,39 +36,56 @@ final class BoundaryConstants {
     Map<String, IExpr> solve(Map<String, IExpr> profiles, Set<Stmt.Boundary> used, Map<String, List<TrailStep>> trails,
                              List<String> notes) {
         Map<String, IExpr> constants = new LinkedHashMap<>();
-        for (Stmt.Boundary b : table.model().boundaries()) {
-            if (used.contains(b)) continue;
-            Translation t = new Translation(table, symja, profiles, constants);
-            String label = b.label().present() ? b.label().name() : "on line " + b.span().line();
-            try {
-                IExpr lhs = symja.eval(t.plain(b.equation().lhs()));
-                IExpr rhs = symja.eval(t.plain(b.equation().rhs()));
-                IExpr eq = symja.eval(F.Subtract(lhs, rhs));
-                List<String> unknown = t.unknownConstantsIn(eq);
-                if (t.mentionsUnknownProfile(eq) || unknown.size() != 1) continue;
-                String k = unknown.get(0);
-                ISymbol ks = table.symbol(k);
-                Optional<IExpr> root = symbolicRoot(eq, ks, t);
-                String how = "solve boundary " + label + " for " + k;
-                if (root.isEmpty()) {
-                    root = numericRoot(eq, ks, t);
-                    how = "first root of boundary " + label + " in " + k + ", found numerically and identified exactly";
+        Set<Stmt.Boundary> done = new java.util.HashSet<>(used);
+        // A boundary in two unknown constants can fix one of them once a later boundary has fixed the other.
+        boolean progress = true;
+        while (progress) {
+            progress = false;
+            for (Stmt.Boundary b : table.model().boundaries()) {
+                if (done.contains(b)) continue;
+                if (fix(b, profiles, constants, trails, notes)) {
+                    done.add(b);
+                    progress = true;
                 }
-                if (root.isEmpty()) {
-                    notes.add("boundary " + label + " does not give a closed form for " + k);
-                    continue;
-                }
-                IExpr value = closedForms.simplify(root.get());
-                constants.put(k, value);
-                List<TrailStep> trail = new ArrayList<>();
-                trail.add(new TrailStep("substitute the closed forms into boundary " + label, closedForms.print(eq) + " = 0"));
-                trail.add(new TrailStep(how, k + " = " + closedForms.print(value)));
-                trails.put(k, trail);
-            } catch (Translation.Untranslatable | Symja.Failure e) {
-                notes.add("boundary " + label + ": " + e.getMessage());
             }
         }
         return constants;
+    }
+
+    /** Whether the boundary is settled: it fixed its one unknown constant, or cannot (said in a note); false while it holds none or several. */
+    private boolean fix(Stmt.Boundary b, Map<String, IExpr> profiles, Map<String, IExpr> constants,
+                        Map<String, List<TrailStep>> trails, List<String> notes) {
+        Translation t = new Translation(table, symja, profiles, constants);
+        String label = b.label().present() ? b.label().name() : "on line " + b.span().line();
+        try {
+            IExpr lhs = symja.eval(t.plain(b.equation().lhs()));
+            IExpr rhs = symja.eval(t.plain(b.equation().rhs()));
+            IExpr eq = symja.eval(F.Subtract(lhs, rhs));
+            List<String> unknown = t.unknownConstantsIn(eq);
+            if (t.mentionsUnknownProfile(eq) || unknown.size() != 1) return false;
+            String k = unknown.get(0);
+            ISymbol ks = table.symbol(k);
+            Optional<IExpr> root = symbolicRoot(eq, ks, t);
+            String how = "solve boundary " + label + " for " + k;
+            if (root.isEmpty()) {
+                root = numericRoot(eq, ks, t);
+                how = "first root of boundary " + label + " in " + k + ", found numerically and identified exactly";
+            }
+            if (root.isEmpty()) {
+                notes.add("boundary " + label + " does not give a closed form for " + k);
+                return true;
+            }
+            IExpr value = closedForms.simplify(root.get());
+            constants.put(k, value);
+            List<TrailStep> trail = new ArrayList<>();
+            trail.add(new TrailStep("substitute the closed forms into boundary " + label, closedForms.print(eq) + " = 0"));
+            trail.add(new TrailStep(how, k + " = " + closedForms.print(value)));
+            trails.put(k, trail);
+            return true;
+        } catch (Translation.Untranslatable | Symja.Failure e) {
+            notes.add("boundary " + label + ": " + e.getMessage());
+            return true;
+        }
     }
 
     private Optional<IExpr> symbolicRoot(IExpr eq, ISymbol k, Translation t) {

@@ -37,6 +37,7 @@ final class ClosedForms {
     private final Map<String, IExpr> profiles = new LinkedHashMap<>();
     private final Map<String, List<TrailStep>> trails = new LinkedHashMap<>();
     private final Set<Stmt.Relation> usedRelations = new HashSet<>();
+    private final Set<Stmt.Relation> unitFailures = new HashSet<>();
     private final Set<Stmt.Boundary> usedBoundaries = new HashSet<>();
 
     ClosedForms(Symja symja, SymbolTable table, IExpr assumptions, Map<String, IExpr> constants, List<String> notes) {
@@ -50,6 +51,14 @@ final class ClosedForms {
 
     Found derive() {
         if (table.model().coordinate().isEmpty()) return new Found(profiles, trails, usedBoundaries);
+        for (Stmt.Relation r : table.model().relations()) {
+            // A closed form from a relation whose sides differ in unit would be printed as if it were a result.
+            if (unitsFail(table.model(), r)) {
+                usedRelations.add(r);
+                unitFailures.add(r);
+                notes.add("relation " + name(r) + " has inconsistent units; no closed form is derived from it");
+            }
+        }
         boolean progress = true;
         while (progress && profiles.size() < table.model().profiles().size()) {
             progress = false;
@@ -68,11 +77,17 @@ final class ClosedForms {
             if (!progress) progress = tryKnownSolutions();
         }
         for (Symbol.Profile p : table.model().profiles()) {
-            if (!profiles.containsKey(p.name())) {
+            // After a unit error the note on that relation says why; "the numeric answer is used" would not hold.
+            if (!profiles.containsKey(p.name()) && unitFailures.isEmpty()) {
                 notes.add("no closed form was found for " + p.name() + "(" + table.name(table.coordinate) + "); the numeric answer is used");
             }
         }
         return new Found(profiles, trails, usedBoundaries);
+    }
+
+    /** Whether the unit check of the relation failed. */
+    static boolean unitsFail(dev.plumb.model.Model model, Stmt.Relation r) {
+        return model.unitChecks().stream().anyMatch(u -> u.span().equals(r.span()) && u.status() == dev.plumb.model.Status.FAILS);
     }
 
     private Translation translation() {
@@ -120,7 +135,7 @@ final class ClosedForms {
             String dpx = p + "'(" + table.name(x) + ")";
             Boundary b = boundaryFor(p);
             if (b == null) {
-                notes.add("no boundary condition at a known point fixes the constant of integration of " + px);
+                notes.add("no boundary condition fixes the constant of integration of " + px);
                 return false;
             }
             FirstOrder firstOrder = new FirstOrder(symja, table, assumptions, this);
@@ -260,20 +275,27 @@ final class ClosedForms {
     /** A boundary that gives the profile's value at a point that is known. */
     private record Boundary(String label, Stmt.Boundary statement, IExpr point, IExpr value) { }
 
+    /**
+     * Prefers a point that is known; failing that, a point that is an unknown constant still to be
+     * fixed by another boundary (the surface {@code P(R) = 0} of a planet whose R follows from
+     * {@code m(R) = M}): the closed form then holds that constant until it is known.
+     */
     private Boundary boundaryFor(String p) {
-        for (Stmt.Boundary b : table.model().boundaries()) {
-            if (usedBoundaries.contains(b)) continue;
-            if (!(b.equation().lhs() instanceof dev.plumb.lang.Expr.Call c) || !c.callee().equals(p) || c.order() != 0) continue;
-            try {
-                Translation t = translation();
-                IExpr point = symja.eval(t.plain(c.args().get(0)));
-                IExpr value = symja.eval(t.plain(b.equation().rhs()));
-                if (!t.unknownConstantsIn(point).isEmpty() || !t.unknownConstantsIn(value).isEmpty()) continue;
-                if (t.mentionsUnknownProfile(value) || point.has(table.coordinate, true)) continue;
-                String label = b.label().present() ? b.label().name() : "on line " + b.span().line();
-                return new Boundary(label, b, point, value);
-            } catch (Translation.Untranslatable | Symja.Failure e) {
-                continue;
+        for (boolean atUnknownPoint : new boolean[] {false, true}) {
+            for (Stmt.Boundary b : table.model().boundaries()) {
+                if (usedBoundaries.contains(b)) continue;
+                if (!(b.equation().lhs() instanceof dev.plumb.lang.Expr.Call c) || !c.callee().equals(p) || c.order() != 0) continue;
+                try {
+                    Translation t = translation();
+                    IExpr point = symja.eval(t.plain(c.args().get(0)));
+                    IExpr value = symja.eval(t.plain(b.equation().rhs()));
+                    if (t.unknownConstantsIn(point).isEmpty() == atUnknownPoint || !t.unknownConstantsIn(value).isEmpty()) continue;
+                    if (t.mentionsUnknownProfile(value) || point.has(table.coordinate, true)) continue;
+                    String label = b.label().present() ? b.label().name() : "on line " + b.span().line();
+                    return new Boundary(label, b, point, value);
+                } catch (Translation.Untranslatable | Symja.Failure e) {
+                    continue;
+                }
             }
         }
         return null;
@@ -286,7 +308,7 @@ final class ClosedForms {
      */
     private boolean tryKnownSolutions() {
         ISymbol x = table.coordinate;
-        if (!table.model().coordinate().get().dimension().isNone()) return false;
+        if (!table.model().coordinate().get().dimension().isNone() || !unitFailures.isEmpty()) return false;
         List<IExpr[]> library = List.of(
                 new IExpr[] {F.Subtract(F.C1, F.Times(F.QQ(1, 6), F.Sqr(x))), F.$str("Lane–Emden n = 0")},
                 new IExpr[] {F.Divide(F.Sin(x), x), F.$str("Lane–Emden n = 1")},

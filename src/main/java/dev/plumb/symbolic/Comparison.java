@@ -133,7 +133,8 @@ final class Comparison {
             double a2 = q2 > 0 ? Math.log(q2) / Math.log(2) : Double.NaN;
             double a3 = q3 > 0 ? Math.log(q3) / Math.log(3) : Double.NaN;
             var exponent = dev.plumb.units.Rational.approximate(a2, 12);
-            if (!Double.isNaN(a2) && Math.abs(a2 - a3) < 1e-9 && exponent.isPresent()
+            // An exponent of 0 is a ratio that varies, only too little for the power test: not a power law.
+            if (!Double.isNaN(a2) && Math.abs(a2 - a3) < 1e-9 && exponent.isPresent() && exponent.get().toDouble() != 0
                     && Math.abs(exponent.get().toDouble() - a2) < 1e-9) {
                 powers.put(entry.getKey(), exponent.get().toString());
             } else {

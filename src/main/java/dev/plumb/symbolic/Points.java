@@ -13,8 +13,21 @@ final class Points {
     static IExpr at(Symja symja, IExpr f, ISymbol x, IExpr point) {
         IExpr direct = symja.eval(F.ReplaceAll(f, F.Rule(x, point)));
         if (!isSingular(direct)) return direct;
-        IExpr limit = symja.eval(F.Limit(f, F.Rule(x, point)));
-        return limit.isAST(S.Limit) ? direct : limit;
+        IExpr limit = limit(symja, f, x, point);
+        if (limit != null) return limit;
+        // Symja's Limit answers Indeterminate for cos(x)/x - sin(x)/x^2 at 0 (the slope of sin(x)/x),
+        // but finds the limit of the same function over one denominator.
+        limit = limit(symja, F.Together(f), x, point);
+        return limit != null ? limit : direct;
+    }
+
+    private static IExpr limit(Symja symja, IExpr f, ISymbol x, IExpr point) {
+        try {
+            IExpr limit = symja.eval(F.Limit(f, F.Rule(x, point)));
+            return limit.isAST(S.Limit) || isSingular(limit) ? null : limit;
+        } catch (Symja.Failure failure) {
+            return null;
+        }
     }
 
     /**

@@ -14,6 +14,7 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import org.matheclipse.core.expression.F;
 import org.matheclipse.core.interfaces.IExpr;
 
 /**
@@ -44,27 +45,42 @@ public final class SymbolicEngine {
         Map<String, List<TrailStep>> trails = new LinkedHashMap<>(found.trails());
         Map<String, IExpr> constants = new BoundaryConstants(symja, table, closedForms)
                 .solve(found.profiles(), found.usedBoundaries(), trails, notes);
+        Map<String, IExpr> settled = settle(symja, table, closedForms, found.profiles(), constants, trails);
 
         PlumbForm form = new PlumbForm(table);
         List<Derived> derived = new ArrayList<>();
         Map<String, Expr> profiles = new LinkedHashMap<>();
         Map<String, Expr> constantForms = new LinkedHashMap<>();
         String x = model.coordinate().map(Symbol::name).orElse("x");
-        found.profiles().forEach((name, closed) -> {
-            Expr e = plumb(form, closedForms.neat(closed), notes, name);
+        Map<String, IExpr> neatConstants = new LinkedHashMap<>();
+        constants.forEach((name, closed) -> neatConstants.put(name, closedForms.neat(closed)));
+        settled.forEach((name, closed) -> {
+            // Printed as derived, 2/3*pi*G*rho^2*(R^2 - r^2), with the neat form of R put in as it stands.
+            IExpr raw = found.profiles().get(name);
+            IExpr shown = raw == closed ? closedForms.neat(closed) : closedForms.neat(raw).replaceAll(v -> {
+                IExpr k = neatConstant(table, neatConstants, v);
+                if (k != null) return k;
+                // R^2 with R = (3*M/(4*pi*rho))^(1/3) reads (3*M/(4*pi*rho))^(2/3); R is positive, so this is exact.
+                if (!v.isPower() || !v.exponent().isRational()) return F.NIL;
+                IExpr b = neatConstant(table, neatConstants, v.base());
+                if (b == null) return F.NIL;
+                return b.isPower() && b.exponent().isRational()
+                        ? F.Power(b.base(), symja.eval(F.Times(b.exponent(), v.exponent()))) : F.Power(b, v.exponent());
+            }).orElse(closedForms.neat(closed));
+            Expr e = plumb(form, shown, notes, name);
             if (e == null) return;
             profiles.put(name, e);
             derived.add(new Derived(name + "(" + x + ")", e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
         });
-        constants.forEach((name, closed) -> {
-            Expr e = plumb(form, closedForms.neat(closed), notes, name);
+        neatConstants.forEach((name, closed) -> {
+            Expr e = plumb(form, closed, notes, name);
             if (e == null) return;
             constantForms.put(name, e);
             derived.add(new Derived(name, e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
         });
-        derived.addAll(pointValues(model, symja, table, closedForms, found.profiles(), constants, form, notes));
+        derived.addAll(pointValues(model, symja, table, closedForms, settled, constants, form, notes));
 
-        Verification verification = new Verification(symja, table, assumptions, found.profiles(), constants);
+        Verification verification = new Verification(symja, table, assumptions, settled, constants);
         List<Check> checks = new ArrayList<>();
         // In file order, but as the model has them: with the unknown side on the left.
         Iterator<Stmt.Step> steps = model.steps().iterator();
@@ -74,6 +90,37 @@ public final class SymbolicEngine {
             if (s instanceof Stmt.Claim) checks.add(verification.claim(claims.next()));
         }
         return new SymbolicResult(checks, derived, profiles, constantForms, notes);
+    }
+
+    /**
+     * The profiles with the unknown constants they still hold (a surface radius fixed by a later
+     * boundary) replaced by their closed forms, so that a closed form is in the parameters alone.
+     */
+    private static Map<String, IExpr> settle(Symja symja, SymbolTable table, ClosedForms closedForms, Map<String, IExpr> profiles,
+                                             Map<String, IExpr> constants, Map<String, List<TrailStep>> trails) {
+        Map<String, IExpr> out = new LinkedHashMap<>();
+        profiles.forEach((name, closed) -> {
+            List<String> held = new Translation(table, symja, profiles, Map.of()).unknownConstantsIn(closed).stream()
+                    .filter(constants::containsKey).toList();
+            if (held.isEmpty()) {
+                out.put(name, closed);
+                return;
+            }
+            List<IExpr> rules = new ArrayList<>();
+            held.forEach(k -> rules.add(F.Rule(table.symbol(k), constants.get(k))));
+            IExpr value = symja.eval(F.ReplaceAll(closed, F.ListAlloc(rules)));
+            out.put(name, value);
+            List<TrailStep> trail = new ArrayList<>(trails.getOrDefault(name, List.of()));
+            trail.add(new TrailStep("substitute " + String.join(", ", held.stream().map(k -> k + " = " + closedForms.print(constants.get(k))).toList()),
+                    name + "(" + table.name(table.coordinate) + ") = " + closedForms.print(value)));
+            trails.put(name, trail);
+        });
+        return out;
+    }
+
+    private static IExpr neatConstant(SymbolTable table, Map<String, IExpr> neatConstants, IExpr v) {
+        String k = v.isSymbol() ? table.name((org.matheclipse.core.interfaces.ISymbol) v) : null;
+        return k == null ? null : neatConstants.get(k);
     }
 
     private static Expr plumb(PlumbForm form, IExpr closed, List<String> notes, String what) {

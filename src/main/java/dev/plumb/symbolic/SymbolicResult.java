@@ -21,6 +21,7 @@ public record SymbolicResult(List<Check> checks, List<Derived> derived, Map<Stri
         derived = List.copyOf(derived);
         profiles = Map.copyOf(profiles);
         constants = Map.copyOf(constants);
-        notes = List.copyOf(notes);
+        // Passes over the relations can meet the same obstacle more than once; a reader needs it once.
+        notes = notes.stream().distinct().toList();
     }
 }

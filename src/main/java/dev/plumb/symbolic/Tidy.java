@@ -13,7 +13,7 @@ import org.matheclipse.core.interfaces.ISymbol;
  * Rewrites a closed form the way it is written by hand: the common factor of a polynomial
  * numerator in front ({@code 3*G*M^2*(R^2 - r^2)/(8*pi*R^6)}), powers with opposite exponents
  * merged ({@code P0*(1 - L*z/T0)^k}), a constant taken inside a fractional power, a product of
- * square roots as one root. Some of these hold only for positive bases, so every rewrite is a
+ * roots as one root ({@code (3*M/(4*pi*rho))^(1/3)}). Some of these hold only for positive bases, so every rewrite is a
  * candidate that the caller keeps only after comparing it with the original at random points.
  */
 final class Tidy {
@@ -33,6 +33,7 @@ final class Tidy {
         add(out, () -> mergedPowers(e));
         add(out, () -> insidePower(e));
         add(out, () -> oneRoot(e));
+        add(out, () -> commonRoot(e));
         List<IExpr> more = new ArrayList<>();
         for (IExpr c : out) add(more, () -> commonFactor(c));
         out.addAll(more);
@@ -136,5 +137,35 @@ final class Tidy {
         IExpr square = symja.eval(F.Together(F.PowerExpand(F.Power(e, F.C2))));
         IExpr root = F.Power(square, F.C1D2);
         return e.isNegative() ? F.Negate(root) : root;
+    }
+
+    /**
+     * The factors with fractional exponents as one root of their common degree, the whole part
+     * of each exponent left outside: {@code pi^(1/3)*G*rho^(4/3)*M^(2/3)/6^(1/3)} as
+     * {@code G*rho*(pi*rho*M^2/6)^(1/3)}.
+     */
+    private IExpr commonRoot(IExpr e) {
+        if (!e.isTimes()) return null;
+        List<IExpr> outside = new ArrayList<>();
+        List<IExpr> inside = new ArrayList<>();
+        java.math.BigInteger degree = java.math.BigInteger.ONE;
+        for (IExpr f : (IAST) e) {
+            if (f.isPower() && f.exponent() instanceof org.matheclipse.core.interfaces.IFraction q) {
+                java.math.BigInteger num = q.toBigNumerator();
+                java.math.BigInteger den = q.toBigDenominator();
+                java.math.BigInteger whole = num.divide(den);
+                if (whole.signum() != 0) outside.add(F.Power(f.base(), F.ZZ(whole)));
+                inside.add(F.Power(f.base(), F.QQ(F.ZZ(num.subtract(whole.multiply(den))), F.ZZ(den))));
+                degree = degree.divide(degree.gcd(den)).multiply(den);
+            } else {
+                outside.add(f);
+            }
+        }
+        if (inside.size() < 2) return null;
+        IExpr radicand = symja.eval(F.Together(F.PowerExpand(F.Power(F.Times(inside.toArray(IExpr[]::new)), F.ZZ(degree)))));
+        IExpr root = F.Power(radicand, F.QQ(F.C1, F.ZZ(degree)));
+        if (outside.isEmpty()) return root;
+        outside.add(root);
+        return F.Times(outside.toArray(IExpr[]::new));
     }
 }

@@ -155,6 +155,7 @@ final class Verification {
     /** The right side of a relation whose left side is the same profile derivative, e.g. {@code P'(r)}, translated. */
     private IExpr relationFor(Expr lhs, Map<String, IExpr> known) throws Translation.Untranslatable {
         for (Stmt.Relation r : table.model().relations()) {
+            if (ClosedForms.unitsFail(table.model(), r)) continue;
             if (ExprPrinter.print(r.equation().lhs()).equals(ExprPrinter.print(lhs))) {
                 Translation t = translation(known);
                 IExpr rhs = symja.eval(t.plain(r.equation().rhs()));

@@ -26,6 +26,14 @@ final class Fixtures {
         return m;
     }
 
+    /** As {@link #model}, for a file whose only errors are failed unit checks. */
+    static Model modelWithUnitErrors(String path, String text) {
+        Diagnostics d = new Diagnostics();
+        Model m = Checker.check(Parser.parse(new SourceFile(path, text), d), d);
+        assertFalse(d.hasInputErrors(), () -> "input errors in " + path + ": " + m.diagnostics());
+        return m;
+    }
+
     static Model file(String path) {
         try {
             return model(path, Files.readString(Path.of(path)));

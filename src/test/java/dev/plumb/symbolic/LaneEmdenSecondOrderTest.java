@@ -8,7 +8,7 @@ import dev.plumb.model.Status;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 
-/** Lane–Emden n = 0 and n = 5 written as one second-order relation, under other names and in other arrangements. */
+/** Lane–Emden n = 0, 1 and 5 written as one second-order relation, under other names and in other arrangements. */
 class LaneEmdenSecondOrderTest {
 
     @Test
@@ -31,6 +31,64 @@ class LaneEmdenSecondOrderTest {
         assertEquals("sqrt(6)", Fixtures.derived(r, "s1").printed());
         assertEquals(Math.sqrt(6), ConstantEvaluatorSupport.evaluate(model, Fixtures.derived(r, "s1").closedForm(), Map.of()), 1e-15);
         assertEquals(Status.HOLDS, Fixtures.check(r, "zero").status());
+    }
+
+    @Test
+    void nOneIsSinXiOverXiWithItsFirstZeroAtPi() {
+        String file = """
+                param n = 1
+                coord xi from 0 to xi1
+                unknown theta(xi)
+                unknown xi1
+                relation le: theta''(xi) = -2/xi*theta'(xi) - theta(xi)^n
+                boundary centre: theta(0) = 1
+                boundary regular: theta'(0) = 0
+                boundary surface: theta(xi1) = 0
+                claim zero: xi1 = pi
+                claim mass: -xi1^2*theta'(xi1) = pi
+                claim half: theta(pi/2) = 2/pi
+                claim wrong: xi1 = pi/2
+                """;
+        SymbolicResult r = Fixtures.analyze(Fixtures.model("le1.plumb", file));
+        // Analytic: theta = sin(xi)/xi for n = 1 (its slope at 0 is a limit), first zero pi;
+        // Chandrasekhar (1939), table of polytropes: -xi1^2 theta'(xi1) = pi.
+        assertEquals("sin(xi)/xi", Fixtures.derived(r, "theta(xi)").printed());
+        assertEquals("pi", Fixtures.derived(r, "xi1").printed());
+        assertEquals(Status.HOLDS, Fixtures.check(r, "zero").status());
+        assertEquals(Status.HOLDS, Fixtures.check(r, "mass").status());
+        assertEquals(Status.HOLDS, Fixtures.check(r, "half").status());
+        assertEquals(Status.FAILS, Fixtures.check(r, "wrong").status());
+        assertEquals("1/2", Fixtures.check(r, "wrong").factor());
+    }
+
+    @Test
+    void nOneIsRecognisedUnderOtherNamesAndArrangements() {
+        String wOfS = """
+                param n = 1
+                unknown s1
+                coord s from 0 to s1
+                unknown w(s)
+                relation le: w''(s) + 2/s*w'(s) + w(s)^n = 0
+                boundary w(0) = 1
+                boundary w'(0) = 0
+                boundary w(s1) = 0
+                claim zero: s1 = pi
+                """;
+        String yOfX = """
+                unknown X
+                coord x from 0 to X
+                unknown y(x)
+                relation le: x*y''(x) + 2*y'(x) = -x*y(x)
+                boundary y(0) = 1
+                boundary y'(0) = 0
+                boundary y(X) = 0
+                claim zero: X = pi
+                """;
+        for (String file : new String[] {wOfS, yOfX}) {
+            SymbolicResult r = Fixtures.analyze(Fixtures.model("le1-names.plumb", file));
+            // Analytic: the first zero of sin(x)/x is pi.
+            assertEquals(Status.HOLDS, Fixtures.check(r, "zero").status(), r.notes().toString());
+        }
     }
 
     @Test
