@@ -354,47 +354,7 @@ final class CaseProblem {
 
     /** Integrates from the start to the end of the interval (or to the surface) for the unknowns {@code z}. */
     Trajectory integrate(double[] z) throws SolveException {
-        double[][] d = decode(z);
-        double[] consts = d[0], y0 = d[1];
-        for (int i = 0; i < y0.length; i++) {
-            if (!Double.isFinite(y0[i])) {
-                throw new SolveException(form.coordinate.span(), "the start value of " + form.componentName(i) + " is not finite");
-            }
-        }
-        integration.freeBranches();
-        double[] slope = system.derivatives(a, y0);
-        double x = a;
-        double[] y = y0;
-        String note = "regular start";
-        boolean singular = false;
-        for (double s : slope) singular |= !Double.isFinite(s);
-        if (singular) {
-            double[] tol = new double[y0.length];
-            for (int i = 0; i < tol.length; i++) tol[i] = options.relTol() * Math.max(Math.abs(y0[i]), scale[i] * options.absTolScale() / options.relTol());
-            SeriesStart.Result r = SeriesStart.start(system, a, y0, (forward() ? 1 : -1) * 1e-2 * scaleX, scale, tol);
-            x = r.x();
-            y = r.y();
-            note = r.description();
-        }
-        Trajectory t = new Trajectory(this, consts, y0, x, y, note);
-        double end = Double.isNaN(b) ? limit : surface != null ? limit : b;
-        Integration.Stop stop = integration.advance(x, y, end, surface);
-        t.steps += stop.steps();
-        if (surface != null) {
-            if (!stop.atSurface()) {
-                throw new SolveException(surfaceBoundary.span(), "the surface " + surface.description() + " = "
-                        + SeriesStart.trim(surface.value()) + " was never reached: integrated from " + form.coordinate.name() + " = "
-                        + SeriesStart.trim(a) + " to " + String.format("%.6g", end) + " with " + describeUnknowns(z)
-                        + "; at the end " + integration.describe(stop.y()));
-            }
-            t.surfaceX = stop.x();
-            t.surfaceState = stop.y().clone();
-            t.surfaceByApproach = stop.byApproach();
-            t.states.put(stop.x(), stop.y().clone());
-        } else {
-            t.states.put(stop.x(), stop.y().clone());
-        }
-        return t;
+        return Trajectory.integrate(this, z);
     }
 
     String describeUnknowns(double[] z) {

@@ -32,6 +32,53 @@ final class Trajectory implements PointEvaluator.States {
         states.put(seriesX, seriesState.clone());
     }
 
+    /** Integrates a case from the start to the end of the interval (or to the surface) for the unknowns {@code z}. */
+    static Trajectory integrate(CaseProblem p, double[] z) throws SolveException {
+        double[][] d = p.decode(z);
+        double[] consts = d[0], y0 = d[1];
+        for (int i = 0; i < y0.length; i++) {
+            if (!Double.isFinite(y0[i])) {
+                throw new SolveException(p.form.coordinate.span(), "the start value of " + p.form.componentName(i) + " is not finite");
+            }
+        }
+        p.integration.freeBranches();
+        double[] slope = p.system.derivatives(p.a, y0);
+        double x = p.a;
+        double[] y = y0;
+        String note = "regular start";
+        boolean singular = false;
+        for (double s : slope) singular |= !Double.isFinite(s);
+        if (singular) {
+            double[] tol = new double[y0.length];
+            for (int i = 0; i < tol.length; i++) {
+                tol[i] = p.options.relTol() * Math.max(Math.abs(y0[i]), p.scale[i] * p.options.absTolScale() / p.options.relTol());
+            }
+            SeriesStart.Result r = SeriesStart.start(p.system, p.a, y0, (p.forward() ? 1 : -1) * 1e-2 * p.scaleX, p.scale, tol);
+            x = r.x();
+            y = r.y();
+            note = r.description();
+        }
+        Trajectory t = new Trajectory(p, consts, y0, x, y, note);
+        double end = Double.isNaN(p.b) ? p.limit : p.surface != null ? p.limit : p.b;
+        Integration.Stop stop = p.integration.advance(x, y, end, p.surface);
+        t.steps += stop.steps();
+        if (p.surface != null) {
+            if (!stop.atSurface()) {
+                throw new SolveException(p.surfaceBoundary.span(), "the surface " + p.surface.description() + " = "
+                        + SeriesStart.trim(p.surface.value()) + " was never reached: integrated from " + p.form.coordinate.name() + " = "
+                        + SeriesStart.trim(p.a) + " to " + String.format("%.6g", end) + " with " + p.describeUnknowns(z)
+                        + "; at the end " + p.integration.describe(stop.y()));
+            }
+            t.surfaceX = stop.x();
+            t.surfaceState = stop.y().clone();
+            t.surfaceByApproach = stop.byApproach();
+            t.states.put(stop.x(), stop.y().clone());
+        } else {
+            t.states.put(stop.x(), stop.y().clone());
+        }
+        return t;
+    }
+
     boolean surfaceReached() {
         return !Double.isNaN(surfaceX);
     }
