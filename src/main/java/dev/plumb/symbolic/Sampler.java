@@ -91,6 +91,17 @@ final class Sampler {
 
     /** The value of {@code e} at the point, or null when it is not a finite real number there. */
     BigDecimal value(IExpr e, Map<ISymbol, IExpr> values) {
+        try {
+            return HighPrecision.value(e, values);
+        } catch (HighPrecision.NotReal notReal) {
+            return null;
+        } catch (HighPrecision.Declined | ArithmeticException | org.apfloat.ApfloatRuntimeException declined) {
+            return symjaValue(e, values);
+        }
+    }
+
+    /** The value by Symja's own evaluation: exact first, then numeric. */
+    BigDecimal symjaValue(IExpr e, Map<ISymbol, IExpr> values) {
         List<IExpr> rules = new ArrayList<>();
         values.forEach((k, v) -> rules.add(F.Rule(k, v)));
         IExpr n;
