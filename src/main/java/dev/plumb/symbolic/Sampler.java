@@ -95,7 +95,8 @@ final class Sampler {
             return HighPrecision.value(e, values);
         } catch (HighPrecision.NotReal notReal) {
             return null;
-        } catch (HighPrecision.Declined | ArithmeticException | org.apfloat.ApfloatRuntimeException declined) {
+        } catch (HighPrecision.Declined | ArithmeticException | IllegalArgumentException | org.apfloat.ApfloatRuntimeException declined) {
+            // A NaN among the numbers, an exponent out of range: Symja says what such a value is.
             return symjaValue(e, values);
         }
     }
