@@ -61,6 +61,7 @@ public final class ReportCommand implements Callable<Integer> {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "--symbolic-timeout must be a number of seconds above 0 and at most 3600, found " + symbolicTimeout);
         }
+        dev.plumb.symbolic.SymbolicEngine.warmUp();
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter stdout = spec.commandLine().getOut();
         Analysis a = new Analyzer(new Analyzer.Options(symbolicTimeout, true)).analyze(file);
