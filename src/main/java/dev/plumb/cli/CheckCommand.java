@@ -1,7 +1,6 @@
 package dev.plumb.cli;
 
 import dev.plumb.report.Analysis;
-import dev.plumb.symbolic.SymbolicEngine;
 import dev.plumb.report.Json;
 import dev.plumb.report.JsonReport;
 import dev.plumb.report.Style;
@@ -31,12 +30,8 @@ public final class CheckCommand implements Callable<Integer> {
             defaultValue = "text")
     Format format;
 
-    @Option(names = "--strict", description = "an undecided check fails the run")
-    boolean strict;
-
-    @Option(names = "--symbolic-timeout", paramLabel = "SECONDS", defaultValue = "5",
-            description = "time limit for each symbolic computation (default: ${DEFAULT-VALUE} s)")
-    double symbolicTimeout;
+    @CommandLine.Mixin
+    AnalysisOptions analysis;
 
     @Option(names = "--no-color", description = "plain output even on a terminal")
     boolean noColor;
@@ -46,27 +41,22 @@ public final class CheckCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        if (!(symbolicTimeout > 0) || symbolicTimeout > 3600) {
-            throw new CommandLine.ParameterException(spec.commandLine(),
-                    "--symbolic-timeout must be a number of seconds above 0 and at most 3600, found " + symbolicTimeout);
-        }
         PrintWriter out = spec.commandLine().getOut();
-        SymbolicEngine.warmUp();
-        Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout, false));
+        Analyzer analyzer = analysis.analyzer(spec.commandLine(), false);
         List<Analysis> results = new ArrayList<>();
         int status = 0;
         for (Path f : files) {
             Analysis a = analyzer.analyze(f);
             results.add(a);
-            status = Math.max(status, a.exitStatus(strict));
+            status = Math.max(status, a.exitStatus(analysis.strict));
             if (format == Format.text) {
-                out.print(new TextReport(noColor ? Style.PLAIN : Style.detect()).render(a, strict));
+                out.print(new TextReport(noColor ? Style.PLAIN : Style.detect()).render(a, analysis.strict));
                 out.flush();
             }
         }
         if (format == Format.json) {
-            Object doc = results.size() == 1 ? JsonReport.toMap(results.get(0), strict)
-                    : results.stream().map(a -> JsonReport.toMap(a, strict)).toList();
+            Object doc = results.size() == 1 ? JsonReport.toMap(results.get(0), analysis.strict)
+                    : results.stream().map(a -> JsonReport.toMap(a, analysis.strict)).toList();
             out.print(Json.write(doc));
             out.flush();
         }

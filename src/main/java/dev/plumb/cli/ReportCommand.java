@@ -45,26 +45,17 @@ public final class ReportCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "report", description = "output directory (default: ${DEFAULT-VALUE})")
     Path out;
 
-    @Option(names = "--symbolic-timeout", paramLabel = "SECONDS", defaultValue = "5",
-            description = "time limit for each symbolic computation (default: ${DEFAULT-VALUE} s)")
-    double symbolicTimeout;
-
-    @Option(names = "--strict", description = "an undecided check counts as failing in the exit status")
-    boolean strict;
+    @CommandLine.Mixin
+    AnalysisOptions analysis;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() {
-        if (!(symbolicTimeout > 0) || symbolicTimeout > 3600) {
-            throw new CommandLine.ParameterException(spec.commandLine(),
-                    "--symbolic-timeout must be a number of seconds above 0 and at most 3600, found " + symbolicTimeout);
-        }
-        dev.plumb.symbolic.SymbolicEngine.warmUp();
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter stdout = spec.commandLine().getOut();
-        Analysis a = new Analyzer(new Analyzer.Options(symbolicTimeout, true)).analyze(file);
+        Analysis a = analysis.analyzer(spec.commandLine(), true).analyze(file);
         DiagnosticPrinter printer = new DiagnosticPrinter(Style.detect());
         a.diagnostics().forEach(d -> err.print(printer.print(a.source(), d)));
         err.flush();
@@ -77,7 +68,7 @@ public final class ReportCommand implements Callable<Integer> {
         try {
             for (Format f : formats) {
                 if (f == Format.json) {
-                    files.put(base + ".json", Json.write(JsonReport.toMap(a, strict)).getBytes(StandardCharsets.UTF_8));
+                    files.put(base + ".json", Json.write(JsonReport.toMap(a, analysis.strict)).getBytes(StandardCharsets.UTF_8));
                     continue;
                 }
                 Markup markup = switch (f) {
@@ -96,7 +87,7 @@ public final class ReportCommand implements Callable<Integer> {
             return 2;
         }
         files.keySet().forEach(name -> stdout.println("wrote " + out.resolve(name)));
-        return a.exitStatus(strict);
+        return a.exitStatus(analysis.strict);
     }
 
     private static String baseName(Path p) {
