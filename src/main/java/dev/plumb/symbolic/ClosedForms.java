@@ -168,18 +168,39 @@ final class ClosedForms {
 
     /** The simplest of a few equivalent forms, by how it reads: short, and with few nested fractions. */
     IExpr simplify(IExpr e) {
-        IExpr best = symja.eval(F.Simplify(e, assumptions));
-        IExpr reference = best;
-        int bestScore = score(best);
-        IExpr together = symja.eval(F.Together(best));
+        IExpr simplified = symja.eval(F.Simplify(e, assumptions));
+        Simplest choice = new Simplest(simplified);
+        IExpr together = symja.eval(F.Together(simplified));
         // FactorTerms pulls the common constant out of a polynomial numerator.
         IExpr factoredTerms = F.Times(F.FactorTerms(F.Numerator(together)), F.Power(F.Denominator(together), F.CN1));
-        for (IExpr candidate : List.of(together, F.Factor(best), F.Simplify(F.PowerExpand(best), assumptions),
-                F.Together(F.PowerExpand(best)), factoredTerms)) {
+        for (IExpr candidate : List.of(together, F.Factor(simplified), F.Simplify(F.PowerExpand(simplified), assumptions),
+                F.Together(F.PowerExpand(simplified)), factoredTerms)) {
+            choice.consider(candidate, true);
+        }
+        return choice.best;
+    }
+
+    /**
+     * The best-reading of several forms of one expression. PowerExpand and the rewrites of
+     * {@link Tidy} hold only for positive bases, so a form that reads better must also agree with
+     * the reference at random points before it is kept.
+     */
+    private final class Simplest {
+        final IExpr reference;
+        IExpr best;
+        int bestScore;
+
+        Simplest(IExpr reference) {
+            this.reference = reference;
+            this.best = reference;
+            this.bestScore = score(reference);
+        }
+
+        /** Considers a candidate, evaluated by Symja first when {@code evaluate} is set. */
+        void consider(IExpr candidate, boolean evaluate) {
             try {
-                IExpr c = symja.eval(candidate);
+                IExpr c = evaluate ? symja.eval(candidate) : candidate;
                 int sc = score(c);
-                // PowerExpand holds only for positive bases: a form that reads better must also agree at random points.
                 if (sc < bestScore && equalAtSamples(c, reference)) {
                     best = c;
                     bestScore = sc;
@@ -188,7 +209,6 @@ final class ClosedForms {
                 // The form found so far stands.
             }
         }
-        return best;
     }
 
     /**
@@ -209,8 +229,7 @@ final class ClosedForms {
         } catch (Symja.Failure f) {
             return e;
         }
-        IExpr reference = best;
-        int bestScore = score(best);
+        Simplest choice = new Simplest(best);
         Tidy tidy = new Tidy(symja, table.coordinate);
         List<IExpr> candidates = new ArrayList<>(tidy.candidates(best));
         try {
@@ -219,20 +238,10 @@ final class ClosedForms {
             // Fewer candidates.
         }
         for (IExpr raw : candidates) {
-            for (int evaluated = 0; evaluated < 2; evaluated++) {
-                try {
-                    IExpr c = evaluated == 0 ? symja.eval(raw) : raw;
-                    int sc = score(c);
-                    if (sc < bestScore && equalAtSamples(c, reference)) {
-                        best = c;
-                        bestScore = sc;
-                    }
-                } catch (Symja.Failure ignored) {
-                    // The form found so far stands.
-                }
-            }
+            choice.consider(raw, true);
+            choice.consider(raw, false);
         }
-        return best;
+        return choice.best;
     }
 
     private static final java.math.BigDecimal SAME = new java.math.BigDecimal("1e-30");
