@@ -51,6 +51,7 @@ final class CaseProblem {
     final Map<String, Expr> closedForms;
     private final double[] start;
     private final ConstantEvaluator constants;
+    private final ScalingGuess guesses;
 
     CaseProblem(Formulation form, Map<String, Double> values, NumericOptions options, Map<String, Expr> closedForms)
             throws SolveException {
@@ -119,7 +120,7 @@ final class CaseProblem {
         });
         frame = system.frame;
         startValue = new Evaluator[form.stateSize];
-        ScalingGuess guesses = new ScalingGuess(form.model, values);
+        guesses = new ScalingGuess(form.model, values, Map.of());
         double xScale = Double.isNaN(b) ? guesses.guess(coord.dimension()) : Math.abs(b - a);
         scaleX = Double.isFinite(xScale) && xScale > 0 ? xScale : 1.0;
 
@@ -237,6 +238,28 @@ final class CaseProblem {
                 PiecewiseBreaks.find(conds, frame, form.firstLockSlot(), a, limit), conds, scale);
     }
 
+    /** The series start's length found by the last integration, reused as the next one's first try; NaN before. */
+    double seriesLength = Double.NaN;
+
+    /** The first length the series start tries: the last one found, else a hundredth of the length scale. */
+    double seriesFirstLength() {
+        if (!Double.isNaN(seriesLength)) return seriesLength;
+        double h = 1e-2 * scaleX;
+        if (!Double.isNaN(b) && !fixedSurface) h = Math.min(h, 1e-2 * Math.abs(b - a));
+        return (forward() ? 1 : -1) * h;
+    }
+
+    /**
+     * The longest series start allowed: the last length found (no search again once one is known),
+     * else a twentieth of a fixed interval, and never past half the way to a break of a piecewise relation.
+     */
+    double seriesLongestLength() {
+        if (!Double.isNaN(seriesLength)) return seriesLength;
+        double longest = Double.isNaN(b) ? Double.POSITIVE_INFINITY : 0.05 * Math.abs(b - a);
+        for (double x : integration.breaks) if ((x - a) * (forward() ? 1 : -1) > 0) longest = Math.min(longest, 0.5 * Math.abs(x - a));
+        return (forward() ? 1 : -1) * longest;
+    }
+
     boolean forward() {
         return (Double.isNaN(b) ? limit : b) > a;
     }
@@ -260,7 +283,7 @@ final class CaseProblem {
                 if (v > 0 && Double.isFinite(v)) return v;
             }
         }
-        double g = new ScalingGuess(form.model, values).guess(componentDimension(i));
+        double g = guesses.guess(componentDimension(i));
         return g > 0 && Double.isFinite(g) ? g : 1.0;
     }
 

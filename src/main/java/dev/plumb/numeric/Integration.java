@@ -127,7 +127,7 @@ final class Integration {
                 }
 
                 @Override public void resetState(double t, double[] y) { }
-            }, Math.max(span / 16, minStep * 10), Math.max(1e-15 * Math.max(Math.abs(x0), Math.abs(x1)), minStep * 1e-2), 200);
+            }, Math.max(span / 16, minStep * 10), Math.max(1e-15 * Math.abs(x0), minStep * 1e-2), 200);
         }
         double[] y = y0.clone();
         try {

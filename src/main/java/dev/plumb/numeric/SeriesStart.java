@@ -25,29 +25,78 @@ final class SeriesStart {
     }
 
     /**
-     * @param h0    the first length tried
-     * @param scale a typical magnitude of each state component (for tolerances and difference steps)
-     * @param tol   the absolute agreement wanted per component
+     * Finds a series start of the relations' own scale: from the first length tried, the length is
+     * halved until the two degrees agree, or doubled while they agree and the state has hardly changed
+     * (up to {@code hMax}), so the start does not depend on how good the first length was. A series whose end has crossed
+     * the surface value of component {@code surface} (or left the relations' domain) does not count
+     * as agreeing: the start never jumps over the surface.
+     *
+     * @param h0      the first length tried (its sign gives the direction)
+     * @param hMax    the longest length allowed (same sign as h0), or infinity
+     * @param scale   a typical magnitude of each state component (for tolerances and difference steps)
+     * @param tol     the absolute agreement wanted per component
+     * @param surface the component whose crossing of {@code surfaceValue} ends the interval, or -1
      */
-    static Result start(RelationSystem f, double a, double[] y0, double h0, double[] scale, double[] tol)
-            throws SolveException {
+    static Result start(RelationSystem f, double a, double[] y0, double h0, double hMax, double[] scale, double[] tol,
+                        int surface, double surfaceValue) throws SolveException {
         double h = h0;
         double worst = Double.NaN;
-        for (int attempt = 0; attempt < 16; attempt++, h /= 2) {
-            double[] low = collocate(f, a, y0, h, LOW, scale);
-            double[] high = collocate(f, a, y0, h, HIGH, scale);
-            if (low == null || high == null) continue;
-            worst = 0;
-            for (int i = 0; i < y0.length; i++) worst = Math.max(worst, Math.abs(low[i] - high[i]) / tol[i]);
-            if (worst <= 0.01) {
-                return new Result(a + h, high, String.format("series start on [%s, %s+%.3g] (collocation degree %d, checked against %d)",
-                        trim(a), trim(a), h, HIGH, LOW));
+        double[] good = null;
+        double goodH = Double.NaN;
+        int shrinks = 0;
+        double[] miss = {Double.NaN};
+        for (int attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
+            double[] high = agreeing(f, a, y0, h, scale, tol, surface, surfaceValue, miss);
+            if (high != null) {
+                good = high;
+                goodH = h;
+                if (shrinks > 0 || Math.abs(2 * h) > Math.abs(hMax) || change(y0, high) >= GROWN) break;
+                h *= 2;
+            } else {
+                if (good != null) break;
+                worst = miss[0];
+                shrinks++;
+                h /= 2;
             }
         }
+        if (good != null) {
+            return new Result(a + goodH, good, String.format("series start on [%s, %s%+.3g] (collocation degree %d, checked against %d)",
+                    trim(a), trim(a), goodH, HIGH, LOW));
+        }
         throw new SolveException(f.form.coordinate.span(), "the relations are singular at " + f.form.coordinate.name() + " = "
-                + trim(a) + " and no series start converged (tried 16 lengths from " + String.format("%.3g", h0)
+                + trim(a) + " and no series start converged (tried " + MAX_ATTEMPTS + " lengths down from " + String.format("%.3g", h0)
                 + (Double.isNaN(worst) ? "; the collocation equations had no finite solution)" : String.format(
                 "; degree %d and %d series still differed by %.3g tolerances)", LOW, HIGH, worst)));
+    }
+
+    private static final int MAX_ATTEMPTS = 80;
+
+    /**
+     * A start needs to be long only against the step control's smallest steps: once a component that
+     * starts away from zero has changed by this fraction, the series has found the relations' own scale,
+     * and a longer one would only make values inside it come from a long backward integration.
+     */
+    private static final double GROWN = 1e-5;
+
+    /** The largest relative change over the start of a component that starts away from zero (0 when none does). */
+    private static double change(double[] y0, double[] y) {
+        double out = 0;
+        for (int i = 0; i < y0.length; i++) if (y0[i] != 0) out = Math.max(out, Math.abs(y[i] - y0[i]) / Math.abs(y0[i]));
+        return out;
+    }
+
+    /** The degree-HIGH state at a+h when it agrees with degree LOW and stays on the start's side of the surface, else null. */
+    private static double[] agreeing(RelationSystem f, double a, double[] y0, double h, double[] scale, double[] tol,
+                                     int surface, double surfaceValue, double[] miss) {
+        double[] low = collocate(f, a, y0, h, LOW, scale);
+        double[] high = low == null ? null : collocate(f, a, y0, h, HIGH, scale);
+        miss[0] = Double.NaN;
+        if (low == null || high == null) return null;
+        if (surface >= 0 && (high[surface] - surfaceValue) * (y0[surface] - surfaceValue) <= 0) return null;
+        double worst = 0;
+        for (int i = 0; i < y0.length; i++) worst = Math.max(worst, Math.abs(low[i] - high[i]) / tol[i]);
+        miss[0] = worst;
+        return worst <= 0.01 ? high : null;
     }
 
     static String trim(double v) {
@@ -74,17 +123,18 @@ final class SeriesStart {
                 if (!finite(slope[j])) return null;
                 jac[j] = jacobian(f, a + c[j] * h, stage[j], slope[j], scale);
             }
-            // Residual G = Y - y0 - h A F(Y) and its Jacobian I - h A (x) J.
+            // Residual G = Y - y0 - h A F(Y) and its Jacobian I - h A (x) J, both in units of each component's
+            // scale: unscaled, a mass of 1e30 kg beside a dimensionless u makes pivots that look singular.
             double[] g = new double[size];
             double[][] m = new double[size][size];
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
                     double sum = 0;
                     for (int j = 0; j < s; j++) sum += integ[i][j] * slope[j][k];
-                    g[i * n + k] = stage[i][k] - y0[k] - h * sum;
+                    g[i * n + k] = (stage[i][k] - y0[k] - h * sum) / scale[k];
                     m[i * n + k][i * n + k] += 1.0;
                     for (int j = 0; j < s; j++) {
-                        for (int l = 0; l < n; l++) m[i * n + k][j * n + l] -= h * integ[i][j] * jac[j][k * n + l];
+                        for (int l = 0; l < n; l++) m[i * n + k][j * n + l] -= h * integ[i][j] * jac[j][k * n + l] * scale[l] / scale[k];
                     }
                 }
             }
@@ -98,8 +148,8 @@ final class SeriesStart {
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
                     double d = delta.getEntry(i * n + k);
-                    stage[i][k] -= d;
-                    change = Math.max(change, Math.abs(d) / scale[k]);
+                    stage[i][k] -= d * scale[k];
+                    change = Math.max(change, Math.abs(d));
                 }
             }
             if (!(change < 1e300)) return null;

@@ -53,13 +53,18 @@ final class Trajectory implements PointEvaluator.States {
             for (int i = 0; i < tol.length; i++) {
                 tol[i] = p.options.relTol() * Math.max(Math.abs(y0[i]), p.scale[i] * p.options.absTolScale() / p.options.relTol());
             }
-            SeriesStart.Result r = SeriesStart.start(p.system, p.a, y0, (p.forward() ? 1 : -1) * 1e-2 * p.scaleX, p.scale, tol);
+            SeriesStart.Result r = SeriesStart.start(p.system, p.a, y0, p.seriesFirstLength(), p.seriesLongestLength(), p.scale, tol,
+                    p.surface == null ? -1 : p.surface.index(), p.surface == null ? 0.0 : p.surface.value());
+            p.seriesLength = r.x() - p.a;
             x = r.x();
             y = r.y();
             note = r.description();
         }
         Trajectory t = new Trajectory(p, consts, y0, x, y, note);
-        double end = Double.isNaN(p.b) ? p.limit : p.surface != null ? p.limit : p.b;
+        // A free surface is sought out to the scale of the relations times 1e4, or a billion times the
+        // series start's own length, whichever is further: a poor scale estimate cannot hide the surface.
+        double end = Double.isNaN(p.b) ? p.a + (p.forward() ? 1 : -1) * Math.max(Math.abs(p.limit - p.a), 1e9 * Math.abs(x - p.a))
+                : p.surface != null ? p.limit : p.b;
         Integration.Stop stop = p.integration.advance(x, y, end, p.surface);
         t.steps += stop.steps();
         if (p.surface != null) {
