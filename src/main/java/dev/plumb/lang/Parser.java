@@ -19,7 +19,7 @@ public final class Parser {
 
     /** The statement keywords, in the order the language reference lists them. */
     public static final List<String> STATEMENTS = List.of("title", "param", "coord", "let", "unknown",
-            "relation", "boundary", "step", "claim", "scaling", "case", "expect", "show");
+            "relation", "boundary", "step", "claim", "scaling", "case", "expect", "show", "guess");
 
     private static final Set<String> RESERVED = Set.of("if", "then", "else", "from", "to", "at", "within", "in");
 
@@ -102,6 +102,7 @@ public final class Parser {
             case "case" -> caseStatement(keyword);
             case "expect" -> expect(keyword);
             case "show" -> show(keyword);
+            case "guess" -> guess(keyword);
             default -> throw new IllegalStateException(keyword.text());
         };
     }
@@ -251,6 +252,13 @@ public final class Parser {
         }
         if (amount instanceof Expr.Num n) return new Tolerance(n.value(), null, n.span());
         return new Tolerance(Double.NaN, amount, amount.span());
+    }
+
+    private Stmt guess(Token keyword) {
+        Expr target = expression();
+        consume(TokenType.EQUALS, "expected '=' and a value, e.g. guess R = 3000 [km]");
+        Expr value = expression();
+        return new Stmt.Guess(target, value, keyword.span().to(value.span()));
     }
 
     private Stmt show(Token keyword) {

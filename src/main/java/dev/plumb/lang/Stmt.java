@@ -97,6 +97,13 @@ public sealed interface Stmt {
         }
     }
 
+    /**
+     * {@code guess R = 3000 [km]} or {@code guess P(0) = 1e16 [Pa]}: a first guess for an unknown
+     * constant (or the free end of the interval) or for a start value of an unknown profile, which
+     * the numeric solve starts from instead of its own estimate.
+     */
+    record Guess(Expr target, Expr value, Span span) implements Stmt { }
+
     /** {@code show Q in [GPa]}; {@code unit} may be null (SI). */
     record Show(Expr expr, UnitText unit, Span span) implements Stmt { }
 }

@@ -74,7 +74,7 @@ public final class Checker {
                 program.all(Stmt.Relation.class), sides.boundaries(program.all(Stmt.Boundary.class)),
                 sides.steps(program.all(Stmt.Step.class)), sides.claims(program.all(Stmt.Claim.class)),
                 sides.scalings(program.all(Stmt.Scaling.class)), cases, program.all(Stmt.Expect.class),
-                program.all(Stmt.Show.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
+                program.all(Stmt.Show.class), program.all(Stmt.Guess.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
     }
 
     // ---- declarations ----------------------------------------------------------------------
@@ -253,6 +253,8 @@ public final class Checker {
             inference.infer(sc.rhs());
         } else if (s instanceof Stmt.Expect e) {
             expect(e);
+        } else if (s instanceof Stmt.Guess g) {
+            guess(g);
         } else if (s instanceof Stmt.Show sh) {
             DimForm f = inference.infer(sh.expr());
             if (sh.unit() != null) {
@@ -307,6 +309,26 @@ public final class Checker {
         if (!differ) heldUnits.put(unitChecks.size(), l);
         unitChecks.add(Check.of("units", labelOf(e.label(), e.span()), e.span(), differ ? Status.FAILS : Status.HOLDS,
                 differ ? "the expected value has another unit" : "both sides in " + inference.solver.describe(l)).with("statement", "expect"));
+    }
+
+    /** A guess names an unknown constant or a start value of a profile, with a fixed value of the same unit. */
+    private void guess(Stmt.Guess g) {
+        boolean target = g.target() instanceof Expr.Name n && declarations.get(n.id()) instanceof Stmt.Unknown constant
+                && !constant.isProfile()
+                || g.target() instanceof Expr.Call c && c.args().size() == 1 && declarations.get(c.callee()) instanceof Stmt.Unknown profile
+                && profile.isProfile();
+        if (!target) {
+            diagnostics.error(g.target().span(), "a guess is for an unknown constant or the start value of an unknown profile, not "
+                    + ExprPrinter.print(g.target()), "e.g. guess R = 3000 [km], or guess P(0) = 1e16 [Pa]");
+            return;
+        }
+        for (String name : References.names(g.value())) {
+            if (declarations.get(name) instanceof Stmt.Unknown || coord != null && name.equals(coord.name())) {
+                diagnostics.error(g.value().span(), "a guess must be a fixed value in each case, but it uses '" + name + "'");
+                return;
+            }
+        }
+        sides("guess", Stmt.Label.NONE, g.span(), new Stmt.Equation(g.target(), g.value(), g.span()));
     }
 
     private static String labelOf(Stmt.Label l, Span span) {

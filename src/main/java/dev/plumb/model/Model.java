@@ -31,6 +31,7 @@ public record Model(
         List<CaseValues> cases,
         List<Stmt.Expect> expects,
         List<Stmt.Show> shows,
+        List<Stmt.Guess> guesses,
         Map<Expr, Dimension> dimensions,
         List<Check> unitChecks,
         List<Diagnostic> diagnostics) {

@@ -41,6 +41,9 @@ public final class References {
             collect(e.expected(), out);
         } else if (s instanceof Stmt.Show sh) {
             collect(sh.expr(), out);
+        } else if (s instanceof Stmt.Guess g) {
+            collect(g.target(), out);
+            collect(g.value(), out);
         } else if (s instanceof Stmt.Case c) {
             c.assignments().forEach(a -> {
                 collect(a.value(), out);

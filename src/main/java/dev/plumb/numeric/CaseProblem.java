@@ -120,8 +120,28 @@ final class CaseProblem {
         });
         frame = system.frame;
         startValue = new Evaluator[form.stateSize];
-        guesses = new ScalingGuess(form.model, values, Map.of());
-        double xScale = Double.isNaN(b) ? guesses.guess(coord.dimension()) : Math.abs(b - a);
+        Map<String, Double> givenConstants = new java.util.LinkedHashMap<>();
+        Map<Integer, Double> givenStarts = new java.util.LinkedHashMap<>();
+        Map<Object, Stmt.Guess> givenBy = new java.util.HashMap<>();
+        for (Stmt.Guess g : form.model.guesses()) {
+            double v = constant(g.value(), "a guess");
+            if (g.target() instanceof Expr.Name n) {
+                givenConstants.put(n.id(), v);
+                givenBy.put(n.id(), g);
+            } else if (g.target() instanceof Expr.Call c) {
+                int comp = component(c);
+                if (comp < 0 || point(c.args().get(0)) != a) {
+                    throw new SolveException(g.target().span(), "a guess for a profile gives a start value, at "
+                            + coord.name() + " = " + ExprPrinter.print(coord.from()) + ", of a value or a derivative below the relations' "
+                            + "highest: " + ExprPrinter.print(c) + " is not one");
+                }
+                givenStarts.put(comp, v);
+                givenBy.put(comp, g);
+            }
+        }
+        guesses = new ScalingGuess(form.model, values, givenConstants);
+        double xScale = Double.isNaN(b) ? givenConstants.getOrDefault(form.freeEnd.name(), guesses.guess(coord.dimension()))
+                : Math.abs(b - a);
         scaleX = Double.isFinite(xScale) && xScale > 0 ? xScale : 1.0;
 
         Integration.Surface surf = null;
@@ -176,7 +196,10 @@ final class CaseProblem {
             double guess = Double.NaN;
             String source = null;
             Expr closed = closedForms.get(name);
-            if (closed != null) {
+            if (givenStarts.containsKey(i)) {
+                guess = givenStarts.get(i);
+                source = "the guess on line " + givenBy.get(i).span().line();
+            } else if (closed != null) {
                 guess = tryConstant(closed);
                 source = "closed form";
             }
@@ -196,7 +219,10 @@ final class CaseProblem {
             double guess = Double.NaN;
             String source = null;
             Expr closed = closedForms.get(u.name());
-            if (closed != null) {
+            if (givenConstants.containsKey(u.name())) {
+                guess = givenConstants.get(u.name());
+                source = "the guess on line " + givenBy.get(u.name()).span().line();
+            } else if (closed != null) {
                 guess = tryConstant(closed);
                 source = "closed form";
             }

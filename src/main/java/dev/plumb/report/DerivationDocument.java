@@ -119,6 +119,10 @@ public final class DerivationDocument {
         for (Stmt.Boundary b : model.boundaries()) {
             m.equation(b.label().present() ? b.label().name() : "boundary", b.equation().lhs(), "=", b.equation().rhs());
         }
+        if (!model.guesses().isEmpty()) {
+            m.paragraph("First guesses given for the numeric solve (they change where the search starts, not the answer):");
+            for (Stmt.Guess g : model.guesses()) m.equation("guess", g.target(), "\u2248", g.value());
+        }
     }
 
     private void checks(String title, String kind) {

@@ -28,6 +28,7 @@ public final class LatexMarkup implements Markup {
     public void equation(String label, Expr lhs, String relation, Expr rhs) {
         String rel = switch (relation) {
             case "~" -> "\\propto";
+            case "\u2248" -> "\\approx";
             default -> relation;
         };
         body.append("\\begin{equation*}\n  ").append(LatexPrinter.print(lhs));
