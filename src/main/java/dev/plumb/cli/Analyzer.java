@@ -74,6 +74,7 @@ public final class Analyzer {
         List<Analysis.DerivedForm> derived = new ArrayList<>();
         List<String> scales = List.of();
         List<Analysis.CaseTable> tables = new ArrayList<>();
+        List<dev.plumb.lang.Diagnostic> found = new ArrayList<>(model.diagnostics());
         if (!diagnostics.hasInputErrors()) {
             Map<String, Expr> closedForms = new LinkedHashMap<>();
             SymbolicResult symbolic = guarded("symbolic", notes, () -> SymbolicEngine.analyze(model,
@@ -94,6 +95,7 @@ public final class Analyzer {
             if (numeric != null) {
                 checks.addAll(numeric.checks());
                 notes.addAll(numeric.notes());
+                found.addAll(numeric.diagnostics());
                 for (CaseResult c : numeric.cases()) {
                     Analysis.CaseTable t = guarded("case table", notes, () -> cases.table(c, options.profiles()));
                     if (t != null) tables.add(t);
@@ -106,10 +108,12 @@ public final class Analyzer {
             }
             List<Check> scaling = guarded("scaling", notes, () -> new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
             if (scaling != null) checks.addAll(scaling);
-            List<String> found = guarded("scale lengths", notes, () -> ScaleLength.find(model).stream().map(ScaleLength::describe).toList());
-            if (found != null) scales = found;
+            List<String> lengths = guarded("scale lengths", notes, () -> ScaleLength.find(model).stream().map(ScaleLength::describe).toList());
+            if (lengths != null) scales = lengths;
         }
-        return new Analysis(source, model, model.diagnostics(), checks, derived, tables, scales, notes);
+        found.sort(java.util.Comparator.comparingInt((dev.plumb.lang.Diagnostic d) -> d.span().line())
+                .thenComparingInt(d -> d.span().column()));
+        return new Analysis(source, model, found, checks, derived, tables, scales, notes);
     }
 
     /**

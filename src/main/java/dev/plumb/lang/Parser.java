@@ -181,7 +181,17 @@ public final class Parser {
         }
         UnitText unit = optionalUnit();
         if (unit != null) end = unit.span();
-        return new Stmt.Unknown(name.text(), name.span(), args, unit, keyword.span().to(end));
+        Assumption assumption = null;
+        if (!args.isEmpty() && (check(TokenType.GREATER) || check(TokenType.GREATER_EQUAL))) {
+            Token op = advance();
+            Token zero = consume(TokenType.NUMBER, "expected 0 after '" + op.text() + "': a profile may be declared > 0 or >= 0");
+            if (Double.parseDouble(zero.text()) != 0.0) {
+                throw error(zero, "only '> 0' and '>= 0' are supported for a profile, found " + op.text() + " " + zero.text());
+            }
+            assumption = op.is(TokenType.GREATER) ? Assumption.POSITIVE : Assumption.NON_NEGATIVE;
+            end = zero.span();
+        }
+        return new Stmt.Unknown(name.text(), name.span(), args, unit, assumption, keyword.span().to(end));
     }
 
     private Stmt scaling(Token keyword) {

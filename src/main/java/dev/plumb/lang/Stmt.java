@@ -51,8 +51,11 @@ public sealed interface Stmt {
         }
     }
 
-    /** {@code unknown P(r) [Pa]} (a profile) or {@code unknown K} (a constant fixed by the boundaries). */
-    record Unknown(String name, Span nameSpan, List<String> args, UnitText unit, Span span) implements Stmt {
+    /**
+     * {@code unknown P(r) [Pa]} (a profile, optionally {@code > 0} or {@code >= 0}) or
+     * {@code unknown K} (a constant fixed by the boundaries); {@code assumption} may be null.
+     */
+    record Unknown(String name, Span nameSpan, List<String> args, UnitText unit, Assumption assumption, Span span) implements Stmt {
         public Unknown {
             args = List.copyOf(args);
         }

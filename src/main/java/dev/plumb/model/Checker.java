@@ -68,6 +68,10 @@ public final class Checker {
         inference.forms.forEach((e, f) -> dims.put(e, inference.solver.known(f).orElse(Dimension.NONE)));
         Optional<Symbol.Coordinate> coordinate = coord == null ? Optional.empty()
                 : Optional.of((Symbol.Coordinate) symbols.get(coord.name()));
+        if (!diagnostics.hasErrors()) {
+            boolean hasFree = declarations.values().stream().anyMatch(s -> s instanceof Stmt.Param p && p.value() == null);
+            IntervalPoints.check(symbols, coordinate.orElse(null), cases, program.statements(), hasFree, diagnostics);
+        }
         String title = program.all(Stmt.Title.class).stream().map(Stmt.Title::text).findFirst().orElse(program.source().path());
         Orientation sides = new Orientation(unknownNames());
         return new Model(program, title, Collections.unmodifiableMap(symbols), coordinate,
@@ -420,7 +424,7 @@ public final class Checker {
                 sym = new Symbol.Definition(l.name(), l.nameSpan(), dim(l.name()), l.params(),
                         inference.letParams(l).stream().map(f -> inference.solver.known(f).orElse(Dimension.NONE)).toList(), l.body());
             } else if (s instanceof Stmt.Unknown u && u.isProfile()) {
-                sym = new Symbol.Profile(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null);
+                sym = new Symbol.Profile(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null, u.assumption());
             } else if (s instanceof Stmt.Unknown u) {
                 sym = new Symbol.UnknownConstant(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null,
                         coord != null && (isName(coord.to(), u.name()) || isName(coord.from(), u.name())));

@@ -35,8 +35,15 @@ public sealed interface Symbol {
         }
     }
 
-    /** An unknown profile {@code unknown P(r)}: a function of the coordinate to be found. */
-    record Profile(String name, Span span, Dimension dimension, boolean unitInferred) implements Symbol { }
+    /**
+     * An unknown profile {@code unknown P(r)}: a function of the coordinate to be found;
+     * {@code assumption} ({@code > 0} or {@code >= 0}) may be null.
+     */
+    record Profile(String name, Span span, Dimension dimension, boolean unitInferred, Stmt.Assumption assumption) implements Symbol {
+        public Profile(String name, Span span, Dimension dimension, boolean unitInferred) {
+            this(name, span, dimension, unitInferred, null);
+        }
+    }
 
     /**
      * An unknown constant fixed by the boundaries, such as a polytropic constant, or the end of

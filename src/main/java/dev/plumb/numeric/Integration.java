@@ -31,6 +31,12 @@ final class Integration {
 
     static final String METHOD = "Dormand-Prince 8(5,3)";
 
+    /**
+     * When set, the lowest value of each component at the end of any accepted step and where it was
+     * (for a sign check of the main integration; stays null for on-demand integrations).
+     */
+    double[] lowest, lowestAt;
+
     final RelationSystem system;
     final double[] absTol, relTol;
     final double minStep;
@@ -110,6 +116,14 @@ final class Integration {
                 last[0] = interpolator.getCurrentTime();
                 lastY[0] = interpolator.getInterpolatedState().clone();
                 steps[0]++;
+                if (lowest != null) {
+                    for (int i = 0; i < lowest.length; i++) {
+                        if (lastY[0][i] < lowest[i]) {
+                            lowest[i] = lastY[0][i];
+                            lowestAt[i] = last[0];
+                        }
+                    }
+                }
             }
         });
         boolean[] hit = {false};

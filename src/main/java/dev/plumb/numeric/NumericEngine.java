@@ -1,5 +1,6 @@
 package dev.plumb.numeric;
 
+import dev.plumb.lang.Diagnostic;
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Span;
@@ -96,9 +97,10 @@ public final class NumericEngine {
         List<CaseResult> cases = new ArrayList<>();
         List<Check> checks = new ArrayList<>();
         List<String> notes = new ArrayList<>();
+        List<Diagnostic> diagnostics = new ArrayList<>();
         if (model.hasErrors()) {
             notes.add("the file has errors; nothing was integrated");
-            return new NumericResult(cases, checks, notes);
+            return new NumericResult(cases, checks, notes, diagnostics);
         }
         List<dev.plumb.model.CaseValues> all = new ArrayList<>(model.cases());
         if (all.isEmpty() && model.freeParams().isEmpty()) {
@@ -133,14 +135,15 @@ public final class NumericEngine {
                             + ex.getMessage());
                 }
             }
+            Signs.check(model, c.label(), implicit(model), solution, diagnostics);
             List<QuantityRow> rows = new ArrayList<>();
             for (Map.Entry<String, Wanted> w : wanted.entrySet()) {
-                rows.add(row(model, c, w.getKey(), w.getValue(), solution, tight, closedForms, notes));
+                rows.add(row(model, c, w.getKey(), w.getValue(), solution, tight, closedForms, notes, diagnostics));
             }
-            for (Stmt.Expect e : expects) checks.add(expect(model, c, e, solution, tight));
+            for (Stmt.Expect e : expects) checks.add(expect(model, c, e, solution, tight, diagnostics));
             cases.add(new CaseResult(c.label(), solution.method(), rows, null));
         }
-        return new NumericResult(cases, checks, notes);
+        return new NumericResult(cases, checks, notes, diagnostics);
     }
 
     private static Map<String, Wanted> wanted(Model model) {
@@ -158,12 +161,16 @@ public final class NumericEngine {
     }
 
     private static QuantityRow row(Model model, dev.plumb.model.CaseValues c, String key, Wanted w, Solution solution,
-                                   Solution tight, Map<String, Expr> closedForms, List<String> notes) {
+                                   Solution tight, Map<String, Expr> closedForms, List<String> notes, List<Diagnostic> diagnostics) {
         double numeric;
         try {
             numeric = solution.evaluate(w.expr());
         } catch (SolveException ex) {
-            notes.add(prefix(model, c.label()) + key + " could not be evaluated: " + where(model, ex.span()) + ex.getMessage());
+            if (ex.isRequest()) {
+                request(diagnostics, ex, prefix(model, c.label()));
+            } else {
+                notes.add(prefix(model, c.label()) + key + " could not be evaluated: " + where(model, ex.span()) + ex.getMessage());
+            }
             numeric = Double.NaN;
         }
         double error = Double.NaN;
@@ -202,12 +209,14 @@ public final class NumericEngine {
         return new QuantityRow(key, unit, closed, numeric, rel, error, w.shownUnit(), factor, source);
     }
 
-    private static Check expect(Model model, dev.plumb.model.CaseValues c, Stmt.Expect e, Solution solution, Solution tight) {
+    private static Check expect(Model model, dev.plumb.model.CaseValues c, Stmt.Expect e, Solution solution, Solution tight,
+                                List<Diagnostic> diagnostics) {
         String label = label(e);
         double value;
         try {
             value = solution.evaluate(e.lhs());
         } catch (SolveException ex) {
+            if (ex.isRequest()) request(diagnostics, ex, prefix(model, c.label()));
             return Check.of("expect", label, e.span(), Status.FAILS, ExprPrinter.print(e.lhs()) + " could not be evaluated"
                     + (implicit(model) ? "" : " in case '" + c.label() + "'") + ": " + ex.getMessage());
         }
@@ -242,6 +251,12 @@ public final class NumericEngine {
             }
         }
         return check;
+    }
+
+    /** A request no solve can honour, reported once per place. */
+    private static void request(List<Diagnostic> diagnostics, SolveException ex, String casePrefix) {
+        for (Diagnostic d : diagnostics) if (d.span().equals(ex.span()) && d.severity() == dev.plumb.lang.Severity.ERROR) return;
+        diagnostics.add(Diagnostic.error(ex.span(), casePrefix + ex.getMessage()));
     }
 
     /** Whether {@code e} names the coordinate freely (not only inside a definition's own parameters). */

@@ -10,4 +10,13 @@ public interface Solution {
 
     /** How it was solved: integrator, tolerances, start, shooting. */
     String method();
+
+    /**
+     * The lowest value the solution takes inside the interval for each profile (its value, not a
+     * derivative), the coordinate where it does and the profile's scale, by profile name; empty when
+     * nothing was integrated.
+     */
+    default java.util.Map<String, double[]> lowest() {
+        return java.util.Map.of();
+    }
 }

@@ -33,6 +33,19 @@ final class SolvedCase implements Solution {
         return method;
     }
 
+    @Override
+    public java.util.Map<String, double[]> lowest() {
+        java.util.Map<String, double[]> out = new java.util.LinkedHashMap<>();
+        if (trajectory.lowest == null) return out;
+        for (int j = 0; j < problem.form.profiles.size(); j++) {
+            int i = problem.form.base[j];
+            double[] start = trajectory.states.firstEntry().getValue();
+            out.put(problem.form.profiles.get(j).name(), new double[]{trajectory.lowest[i], trajectory.lowestAt[i],
+                    Math.max(Math.abs(start[i]), problem.scale[i])});
+        }
+        return out;
+    }
+
     private static String describe(CaseProblem p, Shooting.Result r) {
         StringBuilder sb = new StringBuilder(Integration.METHOD);
         sb.append(String.format(", rtol %.0e, atol %.0e of each component's scale", p.options.relTol(), p.options.absTolScale()));

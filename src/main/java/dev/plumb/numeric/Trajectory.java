@@ -2,6 +2,7 @@ package dev.plumb.numeric;
 
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Span;
 import java.util.Map;
 import java.util.TreeMap;
 
@@ -22,6 +23,8 @@ final class Trajectory implements PointEvaluator.States {
     double[] surfaceState;
     boolean surfaceByApproach;
     int steps;
+    /** The lowest value of each state component over the main integration, and where it was. */
+    double[] lowest, lowestAt;
 
     Trajectory(CaseProblem problem, double[] constants, double[] start, double seriesX, double[] seriesState, String startNote) {
         this.problem = problem;
@@ -65,7 +68,24 @@ final class Trajectory implements PointEvaluator.States {
         // series start's own length, whichever is further: a poor scale estimate cannot hide the surface.
         double end = Double.isNaN(p.b) ? p.a + (p.forward() ? 1 : -1) * Math.max(Math.abs(p.limit - p.a), 1e9 * Math.abs(x - p.a))
                 : p.surface != null ? p.limit : p.b;
-        Integration.Stop stop = p.integration.advance(x, y, end, p.surface);
+        t.lowest = y0.clone();
+        t.lowestAt = new double[y0.length];
+        java.util.Arrays.fill(t.lowestAt, p.a);
+        for (int i = 0; i < y.length; i++) {
+            if (y[i] < t.lowest[i]) {
+                t.lowest[i] = y[i];
+                t.lowestAt[i] = x;
+            }
+        }
+        p.integration.lowest = t.lowest;
+        p.integration.lowestAt = t.lowestAt;
+        Integration.Stop stop;
+        try {
+            stop = p.integration.advance(x, y, end, p.surface);
+        } finally {
+            p.integration.lowest = null;
+            p.integration.lowestAt = null;
+        }
         t.steps += stop.steps();
         if (p.surface != null) {
             if (!stop.atSurface()) {
@@ -97,15 +117,18 @@ final class Trajectory implements PointEvaluator.States {
             boolean fixedEnd = problem.fixedSurface && x == problem.b;
             if (fixedEnd || (past && Math.abs(x - surfaceX) <= 1e-9 * problem.scaleX)) return surfaceState.clone();
             if (past) {
-                throw new SolveException(where == null ? problem.form.coordinate.span() : where.span(),
-                        (where == null ? "the point " : ExprPrinter.print(where) + ": the point ") + problem.form.coordinate.name()
-                                + " = " + SeriesStart.trim(x) + " lies beyond the surface at " + String.format("%.9g", surfaceX));
+                throw new SolveException(at(where), (where == null ? "the point " : ExprPrinter.print(where) + " asks for the point ")
+                        + problem.form.coordinate.name() + " = " + SeriesStart.trim(x) + ", beyond the surface at "
+                        + String.format("%.9g", surfaceX) + ": plumb does not extrapolate past the end of the interval", true);
             }
         }
         boolean before = problem.forward() ? x < problem.a : x > problem.a;
-        if (before) {
-            throw new SolveException(where == null ? problem.form.coordinate.span() : where.span(), "the point "
-                    + problem.form.coordinate.name() + " = " + SeriesStart.trim(x) + " lies outside the interval");
+        boolean after = !Double.isNaN(problem.b) && !problem.fixedSurface
+                && (problem.forward() ? x > problem.b : x < problem.b) && Math.abs(x - problem.b) > 1e-12 * problem.scaleX;
+        if (before || after) {
+            throw new SolveException(at(where), (where == null ? "the point " : ExprPrinter.print(where) + " asks for the point ")
+                    + problem.form.coordinate.name() + " = " + SeriesStart.trim(x) + ", outside the interval from "
+                    + SeriesStart.trim(problem.a) + " to " + SeriesStart.trim(problem.b) + ": plumb does not extrapolate", true);
         }
         problem.load(constants);
         double from;
@@ -120,6 +143,10 @@ final class Trajectory implements PointEvaluator.States {
         steps += s.steps();
         states.put(x, s.y().clone());
         return s.y().clone();
+    }
+
+    private Span at(Expr.Call where) {
+        return where == null ? problem.form.coordinate.span() : where.span();
     }
 
     @Override

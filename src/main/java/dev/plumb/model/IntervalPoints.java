@@ -1,0 +1,125 @@
+package dev.plumb.model;
+
+import dev.plumb.lang.Diagnostics;
+import dev.plumb.lang.Expr;
+import dev.plumb.lang.ExprPrinter;
+import dev.plumb.lang.Stmt;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+/**
+ * Finds the points at which a statement asks for a profile ({@code show P(2*R)}, {@code expect},
+ * {@code claim}, {@code step}, {@code boundary}) that lie outside the coordinate's interval in some
+ * case. A profile is known only on its interval: a value past either end would be an
+ * extrapolation of relations that hold only inside, so such a request is an error, never a number.
+ * Points and ends that depend on an unknown (a free surface) are checked after the solve instead.
+ */
+final class IntervalPoints {
+
+    private final Map<String, Symbol> symbols;
+    private final Symbol.Coordinate coord;
+    private final Diagnostics diagnostics;
+
+    private IntervalPoints(Map<String, Symbol> symbols, Symbol.Coordinate coord, Diagnostics diagnostics) {
+        this.symbols = symbols;
+        this.coord = coord;
+        this.diagnostics = diagnostics;
+    }
+
+    /**
+     * Checks every point in every case; a file without free parameters is checked once. A file with
+     * free parameters but no case is checked at no values (its points are checked when it gets one).
+     */
+    static void check(Map<String, Symbol> symbols, Symbol.Coordinate coord, List<CaseValues> cases, List<Stmt> statements,
+                      boolean hasFreeParams, Diagnostics diagnostics) {
+        if (coord == null) return;
+        IntervalPoints points = new IntervalPoints(symbols, coord, diagnostics);
+        List<CaseValues> all = new ArrayList<>(cases);
+        if (all.isEmpty() && !hasFreeParams) all.add(new CaseValues("", dev.plumb.lang.Span.NONE, Map.of(), Map.of()));
+        Set<Expr.Call> reported = new HashSet<>();
+        for (Stmt s : statements) {
+            List<Expr.Call> calls = new ArrayList<>();
+            for (Expr e : requested(s)) points.collect(e, calls, new HashSet<>());
+            for (Expr.Call call : calls) {
+                for (CaseValues c : all) {
+                    if (reported.contains(call)) break;
+                    if (points.outside(call, c)) reported.add(call);
+                }
+            }
+        }
+    }
+
+    /** The expressions of a statement whose profile calls are points of the interval. */
+    private static List<Expr> requested(Stmt s) {
+        if (s instanceof Stmt.Show sh) return List.of(sh.expr());
+        if (s instanceof Stmt.Expect e) return List.of(e.lhs(), e.expected());
+        if (s instanceof Stmt.Claim c) return List.of(c.equation().lhs(), c.equation().rhs());
+        if (s instanceof Stmt.Step st) return List.of(st.equation().lhs(), st.equation().rhs());
+        if (s instanceof Stmt.Boundary b) return List.of(b.equation().lhs(), b.equation().rhs());
+        if (s instanceof Stmt.Scaling sc) return List.of(sc.lhs(), sc.rhs());
+        return List.of();
+    }
+
+    /** Calls of a profile, or of a definition that reads a profile, whose argument does not name the coordinate. */
+    private void collect(Expr e, List<Expr.Call> into, Set<String> visiting) {
+        if (e instanceof Expr.Call c) {
+            Symbol s = symbols.get(c.callee());
+            boolean point = c.args().size() == 1 && !References.names(c.args().get(0)).contains(coord.name())
+                    && (s instanceof Symbol.Profile || s instanceof Symbol.Definition d && !d.params().isEmpty()
+                    && readsProfile(d.body(), new HashSet<>()));
+            if (point) into.add(c);
+            c.args().forEach(a -> collect(a, into, visiting));
+        } else if (e instanceof Expr.Neg n) {
+            collect(n.operand(), into, visiting);
+        } else if (e instanceof Expr.Binary b) {
+            collect(b.left(), into, visiting);
+            collect(b.right(), into, visiting);
+        } else if (e instanceof Expr.If i) {
+            collect(i.condition().left(), into, visiting);
+            collect(i.condition().right(), into, visiting);
+            collect(i.then(), into, visiting);
+            collect(i.otherwise(), into, visiting);
+        }
+    }
+
+    private static String number(double v) {
+        return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : String.format("%.6g", v);
+    }
+
+    private boolean readsProfile(Expr e, Set<String> visiting) {
+        for (String name : References.names(e)) {
+            Symbol s = symbols.get(name);
+            if (s instanceof Symbol.Profile) return true;
+            if (s instanceof Symbol.Definition d && visiting.add(name) && readsProfile(d.body(), visiting)) return true;
+        }
+        return false;
+    }
+
+    /** Reports the call when its point lies outside the interval in case {@code c}; true when it did. */
+    private boolean outside(Expr.Call call, CaseValues c) {
+        ConstantEvaluator values = new ConstantEvaluator(symbols::get, c.values());
+        double x, a, b;
+        try {
+            x = values.evaluate(call.args().get(0));
+            a = values.evaluate(coord.from());
+            b = values.evaluate(coord.to());
+        } catch (ConstantEvaluator.NotConstant dependsOnAnUnknown) {
+            return false;
+        }
+        if (!Double.isFinite(x) || !Double.isFinite(a) || !Double.isFinite(b)) return false;
+        double lo = Math.min(a, b), hi = Math.max(a, b), slack = 1e-12 * Math.max(Math.abs(a), Math.abs(b));
+        if (x >= lo - slack && x <= hi + slack) return false;
+        String where = c.label().isEmpty() ? "" : " in case '" + c.label() + "'";
+        String unit = dev.plumb.units.UnitCatalog.siName(coord.dimension());
+        unit = unit.equals("1") ? "" : " " + unit;
+        diagnostics.error(call.args().get(0).span(), ExprPrinter.print(call) + " asks for a point outside the interval of '"
+                        + coord.name() + "' (" + ExprPrinter.print(coord.from()) + " to " + ExprPrinter.print(coord.to()) + ")",
+                String.format("%s = %s = %s%s%s, but the interval is [%s, %s]%s", coord.name(),
+                        ExprPrinter.print(call.args().get(0)), number(x), unit, where, number(lo), number(hi), unit),
+                "a profile is known only where its relations hold; plumb does not extrapolate past the ends");
+        return true;
+    }
+}
