@@ -205,12 +205,12 @@ final class CaseProblem {
             }
             if (!(Math.abs(guess) > 0) || !Double.isFinite(guess)) {
                 guess = guesses.guess(componentDimension(i));
-                source = "dimensional estimate";
+                source = "from the balance's scales";
             }
             if (!(guess > 0) || !Double.isFinite(guess)) {
                 // No estimate from the inputs: start from one SI unit and let the rescue scan widen the search.
                 guess = 1.0;
-                source = "one SI unit";
+                source = "one SI unit: the balance gives no scale for it";
             }
             unknowns.add(new Unknown(name, i, -1, guess, guess > 0, source, coord.span()));
         }
@@ -228,11 +228,11 @@ final class CaseProblem {
             }
             if (!(Math.abs(guess) > 0) || !Double.isFinite(guess)) {
                 guess = guesses.guess(u.dimension());
-                source = "dimensional estimate";
+                source = "from the balance's scales";
             }
             if (!(guess > 0)) {
                 guess = 1.0;
-                source = "one";
+                source = "one SI unit: the balance gives no scale for it";
             }
             unknowns.add(new Unknown(u.name(), -1, k, guess, guess > 0, source, u.span()));
         }
@@ -412,8 +412,44 @@ final class CaseProblem {
         List<String> parts = new ArrayList<>();
         for (Unknown u : unknowns) {
             double v = u.component() >= 0 ? d[1][u.component()] : d[0][u.constant()];
-            parts.add(u.name() + " = " + String.format("%.9g", v));
+            parts.add(u.name() + " = " + inUserUnits(u, v));
         }
         return String.join(", ", parts);
+    }
+
+    /** The first guesses and where each came from, in the file's units. */
+    String describeGuesses() {
+        List<String> parts = new ArrayList<>();
+        boolean oneSource = unknowns.stream().map(Unknown::guessSource).distinct().count() == 1;
+        for (Unknown u : unknowns) parts.add(u.name() + " = " + inUserUnits(u, u.guess()) + (oneSource ? "" : " (" + u.guessSource() + ")"));
+        return String.join(", ", parts) + (oneSource && !unknowns.isEmpty() ? ", " + unknowns.get(0).guessSource() : "");
+    }
+
+    /** A value of an unknown in the unit its declaration gives (SI when it gives none, or for a derivative). */
+    String inUserUnits(Unknown u, double v) {
+        String name = u.component() >= 0 && u.component() == form.base[componentProfile(u.component())]
+                ? form.profiles.get(componentProfile(u.component())).name() : u.component() < 0 ? u.name() : null;
+        Dimension d = u.component() >= 0 ? componentDimension(u.component()) : form.constants.get(u.constant()).dimension();
+        return quantity(v, name == null ? null : declaredUnit(name), d);
+    }
+
+    /** A quantity in the given unit text (or SI for the dimension when null), with 6 figures. */
+    static String quantity(double v, String unit, Dimension d) {
+        if (unit != null) {
+            try {
+                return String.format("%.6g %s", v / dev.plumb.units.UnitParser.parse(unit).factor(), unit);
+            } catch (dev.plumb.units.UnitException ignored) {
+                // Reported by the unit check; fall back to SI.
+            }
+        }
+        String si = dev.plumb.units.UnitCatalog.siName(d);
+        return String.format("%.6g", v) + (si.equals("1") ? "" : " " + si);
+    }
+
+    private String declaredUnit(String name) {
+        for (Stmt s : form.model.program().statements()) {
+            if (s instanceof Stmt.Unknown u && u.name().equals(name) && u.unit() != null) return u.unit().text();
+        }
+        return null;
     }
 }

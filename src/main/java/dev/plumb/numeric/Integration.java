@@ -20,7 +20,11 @@ import org.apache.commons.math3.ode.sampling.StepInterpolator;
 final class Integration {
 
     /** Where an integration stopped. */
-    record Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach) {
+    record Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach, double asymptote) {
+        Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach) {
+            this(x, y, atSurface, steps, byApproach, Double.NaN);
+        }
+
         Stop(double x, double[] y, boolean atSurface, int steps) {
             this(x, y, atSurface, steps, false);
         }
@@ -71,6 +75,10 @@ final class Integration {
             steps += s.steps();
             y = s.y();
             if (s.atSurface()) return new Stop(s.x(), y, true, steps, s.byApproach());
+            if (!Double.isNaN(s.asymptote())) {
+                freeBranches();
+                return new Stop(s.x(), y, false, steps, false, s.asymptote());
+            }
             // The integrator ends a span within an ulp of where it was asked to; taken as is, the rest would
             // be a span too short to integrate (Commons Math refuses it as "too small"), so the segment's end
             // is taken to be the point asked for.
@@ -106,13 +114,15 @@ final class Integration {
         DormandPrince853Integrator dp = new Guarded(system, Math.min(minStep, span * 1e-3), span, absTol, relTol);
         system.takeNonFinite();
         dp.setMaxEvaluations(2_000_000);
-        double[] last = {x0};
-        double[][] lastY = {y0.clone()};
+        double[] last = {x0}, stepStart = {x0};
+        double[][] lastY = {y0.clone()}, stepStartY = {y0.clone()};
         int[] steps = {0};
         dp.addStepHandler(new StepHandler() {
             @Override public void init(double t0, double[] y, double t) { }
 
             @Override public void handleStep(StepInterpolator interpolator, boolean isLast) {
+                stepStart[0] = last[0];
+                stepStartY[0] = lastY[0];
                 last[0] = interpolator.getCurrentTime();
                 lastY[0] = interpolator.getInterpolatedState().clone();
                 steps[0]++;
@@ -146,6 +156,10 @@ final class Integration {
         double[] y = y0.clone();
         try {
             double end = dp.integrate(system, x0, y0.clone(), x1, y);
+            if (hit[0]) {
+                double asymptote = asymptote(stepStart[0], stepStartY[0], surface);
+                if (!Double.isNaN(asymptote)) return new Stop(end, y, false, steps[0], false, asymptote);
+            }
             return new Stop(end, y, hit[0], steps[0]);
         } catch (NumberIsTooSmallException stalled) {
             double xs = last[0];
@@ -163,6 +177,30 @@ final class Integration {
                     + system.form.coordinate.name() + " = " + String.format("%.6g", x0) + " and " + String.format("%.6g", last[0])
                     + " (tolerance " + relTol[0] + "): the relations are too stiff here");
         }
+    }
+
+    /**
+     * Whether a crossing of the surface value found in the step from (x, y) is an artefact of an
+     * approach that never arrives: NaN when the crossing is genuine, else the local e-folding length.
+     * Near a genuine surface the distance to it behaves like a power, g ~ C s^p with s the distance,
+     * and g g''/g'^2 = (p - 1)/p stays below 1; an exponential approach (an isothermal atmosphere
+     * thinning out) has g g''/g'^2 = 1, p infinite, and its "crossing" is the integrator stepping
+     * past a value far below its tolerance, which must not be taken for a surface.
+     */
+    private double asymptote(double x, double[] y, Surface surface) {
+        int i = surface.index();
+        double g = y[i] - surface.value();
+        double[] f0 = system.derivatives(x, y);
+        double slope = f0[i];
+        if (!(g * slope < 0)) return Double.NaN;
+        double delta = 1e-6 * Math.abs(g / slope);
+        double[] y1 = y.clone();
+        for (int k = 0; k < y1.length; k++) y1[k] += delta * f0[k];
+        double[] f1 = system.derivatives(x + delta, y1);
+        double curvature = (f1[i] - slope) / delta;
+        double p = 1.0 / (1.0 - g * curvature / (slope * slope));
+        if (Double.isFinite(curvature) && !(p > 0 && p < 50)) return Math.abs(g / slope);
+        return Double.NaN;
     }
 
     /**

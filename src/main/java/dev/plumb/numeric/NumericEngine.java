@@ -54,8 +54,9 @@ public final class NumericEngine {
             try {
                 return new SolvedCase(plain, Shooting.solve(plain));
             } catch (SolveException alsoPlain) {
-                throw new SolveException(byEvent.span(), byEvent.getMessage() + "; with " + CaseProblem.describe(problem.surfaceBoundary)
-                        + " as a plain condition at the end of the interval instead: " + alsoPlain.getMessage());
+                // The plain condition's failure says which boundaries are missed; the surface event's is the first try.
+                throw new SolveException(alsoPlain.span(), alsoPlain.getMessage() + " (" + CaseProblem.describe(problem.surfaceBoundary)
+                        + " taken as a condition at the end; sought as a surface instead, it failed too)");
             }
         }
     }

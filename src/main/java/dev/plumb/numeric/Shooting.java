@@ -39,8 +39,9 @@ final class Shooting {
         } catch (SolveException first) {
             double[] rescued = rescue(p, z);
             if (rescued == null) {
-                throw new SolveException(first.span(), "the shooting could not start from its first guess (" + guessText(p)
-                        + "), nor from " + RESCUE_TRIALS + " guesses up to a factor 1e6 away in every direction: " + first.getMessage());
+                throw new SolveException(first.span(), "the shooting on " + names(p) + " found no trial that meets the boundaries, "
+                        + "from its first guess (" + p.describeGuesses() + ") nor from guesses up to a factor 1e6 away in every direction; "
+                        + "the first guess failed: " + first.getMessage() + "; give a better first guess with 'guess'");
             }
             z = rescued;
             t = p.integrate(z);
@@ -96,16 +97,15 @@ final class Shooting {
             if (!accepted) {
                 // Near the integration's own noise no step can reduce the mismatch further: that is convergence.
                 if (norm <= 1e3 * tol) return new Result(t, z, it + 1, norm);
-                throw new SolveException(p.form.coordinate.span(), "the shooting on " + names(p) + " did not converge: after "
-                        + (it + 1) + " damped Newton step(s) no step reduced the mismatch " + String.format("%.3g", norm)
-                        + " (mismatches by step: " + String.join(", ", history) + "); last trial " + p.describeUnknowns(z)
-                        + "; started from " + guessText(p) + (lastFailure == null ? "" : "; a trial failed: " + lastFailure));
+                throw new SolveException(worst(p, f), "the shooting on " + names(p) + " did not converge: "
+                        + missed(p, t, f, tol) + "; no Newton step after " + (it + 1) + " improved on the last trial " + p.describeUnknowns(z)
+                        + " (started from " + p.describeGuesses() + ")" + (lastFailure == null ? "" : "; a shorter step failed: " + lastFailure));
             }
         }
         if (norm <= 1e3 * tol) return new Result(t, z, MAX_ITERATIONS, norm);
-        throw new SolveException(p.form.coordinate.span(), "the shooting on " + names(p) + " did not converge in "
-                + MAX_ITERATIONS + " Newton steps (mismatch " + String.format("%.3g", norm) + " at " + p.describeUnknowns(z)
-                + "; started from " + guessText(p) + ")");
+        throw new SolveException(worst(p, f), "the shooting on " + names(p) + " did not converge in "
+                + MAX_ITERATIONS + " Newton steps: " + missed(p, t, f, tol) + " at the last trial " + p.describeUnknowns(z)
+                + " (started from " + p.describeGuesses() + ")");
     }
 
     private static final int RESCUE_TRIALS = 6;
@@ -173,10 +173,49 @@ final class Shooting {
         return String.join(", ", p.unknowns.stream().map(CaseProblem.Unknown::name).toList());
     }
 
-    private static String guessText(CaseProblem p) {
+    /** The statement of the boundary missed the most, where a failure to converge is reported. */
+    private static dev.plumb.lang.Span worst(CaseProblem p, double[] f) {
+        int extra = p.fixedSurface ? 1 : 0, w = 0;
+        for (int i = 1; i < f.length; i++) if (Math.abs(f[i]) > Math.abs(f[w])) w = i;
+        if (f.length == 0) return p.form.coordinate.span();
+        return w < extra ? p.surfaceBoundary.span() : p.conditions.get(w - extra).boundary().span();
+    }
+
+    /**
+     * Which boundaries a trial misses and by how much against their own scale, worst first: a log
+     * condition as a percentage, a plain one as its two sides and the scale they are measured by.
+     */
+    static String missed(CaseProblem p, Trajectory t, double[] f, double tol) {
+        int extra = p.fixedSurface ? 1 : 0;
+        Integer[] order = new Integer[f.length];
+        for (int i = 0; i < f.length; i++) order[i] = i;
+        java.util.Arrays.sort(order, (i, j) -> Double.compare(Math.abs(f[j]), Math.abs(f[i])));
         List<String> parts = new ArrayList<>();
-        for (CaseProblem.Unknown u : p.unknowns) parts.add(u.name() + " = " + String.format("%.6g", u.guess()) + " (" + u.guessSource() + ")");
-        return String.join(", ", parts);
+        PointEvaluator ev = new PointEvaluator(p.form, p.values, t);
+        for (int i : order) {
+            if (Math.abs(f[i]) <= tol || parts.size() == 2) break;
+            if (i < extra) {
+                parts.add(String.format("the surface %s lies at %s = %.6g instead of at the end %.6g", CaseProblem.describe(p.surfaceBoundary),
+                        p.form.coordinate.name(), t.surfaceX, p.b));
+                continue;
+            }
+            CaseProblem.Condition c = p.conditions.get(i - extra);
+            String what = "boundary " + CaseProblem.describe(c.boundary());
+            if (c.log()) {
+                parts.add(String.format("%s is missed by %+.3g%%", what, 100 * Math.expm1(f[i])));
+            } else {
+                String sides;
+                try {
+                    double l = ev.evaluate(c.boundary().equation().lhs()), r = ev.evaluate(c.boundary().equation().rhs());
+                    dev.plumb.units.Dimension d = p.form.model.dimensionOf(c.boundary().equation().lhs());
+                    sides = " (" + CaseProblem.quantity(l, null, d) + " against " + CaseProblem.quantity(r, null, d) + ")";
+                } catch (SolveException unavailable) {
+                    sides = "";
+                }
+                parts.add(String.format("%s is missed by %.3g of its scale %.3g%s", what, Math.abs(f[i]), c.scale(), sides));
+            }
+        }
+        return parts.isEmpty() ? "the mismatch is " + String.format("%.3g", norm(f)) : String.join(", and ", parts);
     }
 
     private static double norm(double[] f) {

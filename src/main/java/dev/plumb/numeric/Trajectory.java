@@ -88,11 +88,22 @@ final class Trajectory implements PointEvaluator.States {
         }
         t.steps += stop.steps();
         if (p.surface != null) {
-            if (!stop.atSurface()) {
+            if (!stop.atSurface() && !Double.isNaN(stop.asymptote())) {
                 throw new SolveException(p.surfaceBoundary.span(), "the surface " + p.surface.description() + " = "
-                        + SeriesStart.trim(p.surface.value()) + " was never reached: integrated from " + p.form.coordinate.name() + " = "
-                        + SeriesStart.trim(p.a) + " to " + String.format("%.6g", end) + " with " + p.describeUnknowns(z)
-                        + "; at the end " + p.integration.describe(stop.y()));
+                        + SeriesStart.trim(p.surface.value()) + " is never reached: " + p.form.componentName(p.surface.index())
+                        + " approaches it without arriving, falling by a factor e every " + String.format("%.4g", stop.asymptote())
+                        + " near " + p.form.coordinate.name() + " = " + String.format("%.6g", stop.x())
+                        + (p.unknowns.isEmpty() ? "" : " (with " + p.describeUnknowns(z) + ")")
+                        + ": the relations put no surface at a finite distance");
+            }
+            if (!stop.atSurface()) {
+                String reach = Double.isNaN(p.b) ? String.format(" (the search goes to 1e4 times the length scale of the balance, %.3g, "
+                        + "or 1e9 times the series start, whichever is further; 'guess %s = ...' sets the scale)", p.scaleX, p.form.freeEnd.name())
+                        : String.format(" (%.0f times the interval)", CaseProblem.FIXED_SURFACE_REACH);
+                throw new SolveException(p.surfaceBoundary.span(), "the surface " + p.surface.description() + " = "
+                        + SeriesStart.trim(p.surface.value()) + " is never reached: integrated from " + p.form.coordinate.name() + " = "
+                        + SeriesStart.trim(p.a) + " to " + String.format("%.6g", end) + reach
+                        + (p.unknowns.isEmpty() ? "" : " with " + p.describeUnknowns(z)) + "; there " + p.integration.describe(stop.y()));
             }
             t.surfaceX = stop.x();
             t.surfaceState = stop.y().clone();
