@@ -53,6 +53,9 @@ final class SolvedCase implements Solution {
                     .append(r.trajectory().surfaceByApproach
                             ? " (the relations are undefined past it, so it was approached until the step size reached "
                             + String.format("%.0e", p.integration.minStep) + ")"
+                            : !Double.isNaN(r.trajectory().surfaceExponent) ? String.format(" (the last stretch integrated in w = |%s - %s|^(1/p), "
+                            + "which reaches it linearly; p = %.6g from the relations)", p.surface.description(), SeriesStart.trim(p.surface.value()),
+                            r.trajectory().surfaceExponent)
                             : " by event detection");
         }
         if (!p.unknowns.isEmpty()) {
