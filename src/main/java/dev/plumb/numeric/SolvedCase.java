@@ -23,6 +23,11 @@ final class SolvedCase implements Solution {
         return new SolvedCase(p, Shooting.solve(p));
     }
 
+    /** The shooting unknowns of the solution (log or scaled coordinates), for a neighbouring solve to start from. */
+    double[] unknowns() {
+        return unknowns.clone();
+    }
+
     @Override
     public synchronized double evaluate(Expr quantity) throws SolveException {
         return new PointEvaluator(problem.form, problem.values, trajectory).evaluate(quantity);

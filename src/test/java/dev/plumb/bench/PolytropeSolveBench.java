@@ -59,6 +59,19 @@ public class PolytropeSolveBench {
         return NumericEngine.solve(model, Map.of("M", MSUN, "R", RSUN), options).evaluate(centralPressure);
     }
 
+    /**
+     * The same n = 3 star solved by hand with Commons Math (Lane-Emden with a series start, an event at
+     * theta = 0 and the homology relations) at the same tolerance: the yardstick for {@link #singleSolve}.
+     */
+    @Benchmark
+    @BenchmarkMode(Mode.AverageTime)
+    @OutputTimeUnit(TimeUnit.MILLISECONDS)
+    @Warmup(iterations = 3, time = 2)
+    @Measurement(iterations = 5, time = 2)
+    public double handWrittenSolve() {
+        return HandLaneEmden.centralPressure(3, MSUN, RSUN, options.relTol());
+    }
+
     @Benchmark
     @BenchmarkMode(Mode.SingleShotTime)
     @OutputTimeUnit(TimeUnit.SECONDS)

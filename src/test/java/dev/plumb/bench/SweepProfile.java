@@ -33,21 +33,33 @@ public final class SweepProfile {
             }
         }
         int rounds = args.length > 1 ? Integer.parseInt(args[1]) : 3;
+        var process = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
         for (int round = 0; round < rounds; round++) {
-            long t0 = System.nanoTime();
+            long t0 = System.nanoTime(), c0 = process.getProcessCpuTime();
             double[] p = Sweep.evaluate(model, grid, pc, options, 1);
-            long t1 = System.nanoTime();
+            long t1 = System.nanoTime(), c1 = process.getProcessCpuTime();
             int failed = 0;
             for (double v : p) if (Double.isNaN(v)) failed++;
-            System.out.printf("sweep of %d on one thread: %.3f s, %.0f solves/s, %d failed%n", grid.size(), (t1 - t0) * 1e-9,
-                    grid.size() / ((t1 - t0) * 1e-9), failed);
+            System.out.printf("sweep of %d on one thread: %.3f s wall, %.3f s process CPU, %.0f solves per CPU second, %d failed%n",
+                    grid.size(), (t1 - t0) * 1e-9, (c1 - c0) * 1e-9, grid.size() / ((c1 - c0) * 1e-9), failed);
         }
-        long t0 = System.nanoTime();
-        int reps = 200;
-        for (int k = 0; k < reps; k++) {
-            NumericEngine.solve(model, Map.of("M", PolytropeSolveBench.MSUN, "R", PolytropeSolveBench.RSUN), options).evaluate(pc);
+        // Thread CPU time as well as wall time: on a loaded machine only the former says what a solve costs.
+        var cpu = java.lang.management.ManagementFactory.getThreadMXBean();
+        int reps = 400;
+        for (int round = 0; round < 3; round++) {
+            long t0 = System.nanoTime(), c0 = cpu.getCurrentThreadCpuTime();
+            for (int k = 0; k < reps; k++) {
+                NumericEngine.solve(model, Map.of("M", PolytropeSolveBench.MSUN, "R", PolytropeSolveBench.RSUN), options).evaluate(pc);
+            }
+            long t1 = System.nanoTime(), c1 = cpu.getCurrentThreadCpuTime();
+            for (int k = 0; k < reps; k++) {
+                HandLaneEmden.centralPressure(3, PolytropeSolveBench.MSUN, PolytropeSolveBench.RSUN, options.relTol());
+            }
+            long t2 = System.nanoTime(), c2 = cpu.getCurrentThreadCpuTime();
+            System.out.printf("single n = 3 solve: %.3f ms wall, %.3f ms CPU; by hand: %.3f ms wall, %.3f ms CPU; ratio (CPU) %.1f%n",
+                    (t1 - t0) * 1e-6 / reps, (c1 - c0) * 1e-6 / reps, (t2 - t1) * 1e-6 / reps, (c2 - c1) * 1e-6 / reps,
+                    (c1 - c0) / (double) (c2 - c1));
         }
-        System.out.printf("single n = 3 solve: %.3f ms%n", (System.nanoTime() - t0) * 1e-6 / reps);
         try {
             // Counters exist only in an instrumented build.
             System.out.println(Class.forName("dev.plumb.numeric.Probe").getMethod("report").invoke(null));
