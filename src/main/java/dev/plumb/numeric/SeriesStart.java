@@ -73,13 +73,14 @@ final class SeriesStart {
                 slope[j] = f.derivatives(a + c[j] * h, stage[j]);
                 if (!finite(slope[j])) return null;
             }
-            // Residual G = Y - y0 - h A F(Y) and its Jacobian I - h A (x) J.
+            // Residual G = Y - y0 - h A F(Y) and its Jacobian I - h A (x) J, each component divided by its scale:
+            // in SI the entries span forty decades (a mass beside a dimensionless u) and LU took them for singular.
             double[] g = new double[size];
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
                     double sum = 0;
                     for (int j = 0; j < s; j++) sum += integ[i][j] * slope[j][k];
-                    g[i * n + k] = stage[i][k] - y0[k] - h * sum;
+                    g[i * n + k] = (stage[i][k] - y0[k] - h * sum) / scale[k];
                 }
             }
             boolean fresh = solver == null;
@@ -89,7 +90,9 @@ final class SeriesStart {
                     double[] jac = jacobian(f, a + c[j] * h, stage[j], slope[j], scale);
                     for (int i = 0; i < s; i++) {
                         for (int k = 0; k < n; k++) {
-                            for (int l = 0; l < n; l++) m[i * n + k][j * n + l] -= h * integ[i][j] * jac[k * n + l];
+                            for (int l = 0; l < n; l++) {
+                                m[i * n + k][j * n + l] -= h * integ[i][j] * jac[k * n + l] * scale[l] / scale[k];
+                            }
                         }
                     }
                 }
@@ -106,8 +109,8 @@ final class SeriesStart {
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
                     double d = delta.getEntry(i * n + k);
-                    stage[i][k] -= d;
-                    change = Math.max(change, Math.abs(d) / scale[k]);
+                    stage[i][k] -= d * scale[k];
+                    change = Math.max(change, Math.abs(d));
                 }
             }
             if (!(change < 1e300)) return null;

@@ -8,13 +8,14 @@ final class SolvedCase implements Solution {
     private final CaseProblem problem;
     private final Trajectory trajectory;
     private final double[] unknowns;
-    private final String method;
+    private final Shooting.Result result;
+    private String method;
 
     SolvedCase(CaseProblem problem, Shooting.Result result) {
         this.problem = problem;
         this.trajectory = result.trajectory();
         this.unknowns = result.z().clone();
-        this.method = describe(problem, result);
+        this.result = result;
     }
 
     /** The case solved again at other options, from this solution's unknowns and with its boundaries read the same way. */
@@ -34,7 +35,9 @@ final class SolvedCase implements Solution {
     }
 
     @Override
-    public String method() {
+    public synchronized String method() {
+        // Formatted on demand: a sweep asks for thousands of solutions and none of their descriptions.
+        if (method == null) method = describe(problem, result);
         return method;
     }
 

@@ -81,8 +81,6 @@ final class SurfaceApproach {
         double slope0 = system.derivativesAside(x0, y0)[i];
         if (!(slope0 * sign < 0) && !(slope0 * sign > 0)) return null;
         double w0 = Math.pow(Math.abs(d), 1 / p);
-        // Below this w the ratio w^(p-1) / y' is read at the floor: it tends to a finite limit at the surface,
-        // where both vanish, and evaluating it there would be 0/0.
         double floor = w0 * Math.max(1e-9, Math.pow(2, -900 / p));
         double[] work = new double[n];
         boolean[] nonFinite = {false};
@@ -94,14 +92,12 @@ final class SurfaceApproach {
             @Override public void computeDerivatives(double w, double[] z, double[] zDot) {
                 double x = z[n];
                 System.arraycopy(z, 0, work, 0, n);
+                // Within the floor of the surface the relations are read at the floor: the error is of the order of
+                // the floor squared, and at w = 0 itself they may be infinite (x' ~ 1/x) or 0/0.
                 double wr = Math.max(Math.abs(w), floor);
-                work[i] = surface.value() + sign * Math.pow(Math.abs(w), p);
+                work[i] = surface.value() + sign * Math.pow(wr, p);
                 double[] f = system.derivativesAside(x, work);
                 double fi = f[i];
-                if (Math.abs(w) < floor) {
-                    work[i] = surface.value() + sign * Math.pow(wr, p);
-                    fi = system.derivativesAside(x, work)[i];
-                }
                 // dx/dw from sign * (y_i - v) = w^p: sign * y_i' dx = p w^(p-1) dw.
                 double dxdw = p * Math.pow(wr, p - 1) / (sign * fi);
                 boolean ok = Double.isFinite(dxdw);
