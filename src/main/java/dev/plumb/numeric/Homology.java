@@ -7,9 +7,13 @@ import dev.plumb.units.Dimension;
 import dev.plumb.units.UnitException;
 import dev.plumb.units.UnitParser;
 import java.util.ArrayList;
+import java.util.BitSet;
+import java.util.HashMap;
 import java.util.HashSet;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
+import java.util.WeakHashMap;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.LUDecomposition;
 import org.apache.commons.math3.linear.RealMatrix;
@@ -37,22 +41,8 @@ final class Homology {
     static double[][] jacobian(CaseProblem p, Trajectory t, double[] f) {
         if (p.a != 0.0) return null;
         Model model = p.form.model;
-        Set<Dimension> fixed = new HashSet<>();
-        try {
-            for (var r : p.form.relationOf) {
-                constants(model, r.equation().lhs(), fixed, new HashSet<>());
-                constants(model, r.equation().rhs(), fixed, new HashSet<>());
-            }
-            for (var bd : model.boundaries()) {
-                // Start values and targets that are not scaled themselves must be left alone by the scaling.
-                if (p.conditionsInclude(bd)) continue;
-                constants(model, bd.equation().lhs(), fixed, new HashSet<>());
-                constants(model, bd.equation().rhs(), fixed, new HashSet<>());
-            }
-        } catch (UnitException e) {
-            return null;
-        }
-        List<double[]> directions = invariantDirections(fixed);
+        List<double[]> directions = directions(p);
+        if (directions == null) return null;
         int k = p.unknowns.size();
         if (directions.size() < k) return null;
         double[][] dz = new double[k][directions.size()];
@@ -100,6 +90,41 @@ final class Homology {
             new LUDecomposition(j, 1e-14).getSolver().getInverse();
         } catch (RuntimeException singular) {
             return null;
+        }
+        return out;
+    }
+
+    /** Directions per formulation and per choice of the boundaries measured as mismatches: they depend on nothing else. */
+    private static final Map<Formulation, Map<BitSet, List<double[]>>> CACHE = new WeakHashMap<>();
+
+    /** The scalings of units that leave the relations and the start values alone, or null when units cannot be read. */
+    private static List<double[]> directions(CaseProblem p) {
+        Model model = p.form.model;
+        BitSet measured = new BitSet();
+        for (int b = 0; b < model.boundaries().size(); b++) if (p.conditionsInclude(model.boundaries().get(b))) measured.set(b);
+        synchronized (CACHE) {
+            List<double[]> known = CACHE.computeIfAbsent(p.form, f -> new HashMap<>()).get(measured);
+            if (known != null) return known;
+        }
+        Set<Dimension> fixed = new HashSet<>();
+        try {
+            for (var r : p.form.relationOf) {
+                constants(model, r.equation().lhs(), fixed, new HashSet<>());
+                constants(model, r.equation().rhs(), fixed, new HashSet<>());
+            }
+            for (int b = 0; b < model.boundaries().size(); b++) {
+                // Start values and targets that are not scaled themselves must be left alone by the scaling.
+                if (measured.get(b)) continue;
+                var bd = model.boundaries().get(b);
+                constants(model, bd.equation().lhs(), fixed, new HashSet<>());
+                constants(model, bd.equation().rhs(), fixed, new HashSet<>());
+            }
+        } catch (UnitException e) {
+            return null;
+        }
+        List<double[]> out = List.copyOf(invariantDirections(fixed));
+        synchronized (CACHE) {
+            CACHE.get(p.form).put(measured, out);
         }
         return out;
     }

@@ -123,12 +123,12 @@ final class Integration {
         });
         boolean[] hit = {false}, near = {false};
         if (surface != null && approach) {
-            double sense = x1 > x0 ? 1.0 : -1.0;
+            double sense = x1 > x0 ? 1.0 : -1.0, side = y0[surface.index()] >= surface.value() ? 1.0 : -1.0;
             dp.addEventHandler(new EventHandler() {
                 @Override public void init(double t0, double[] y, double t) { }
 
                 @Override public double g(double t, double[] y) {
-                    return SurfaceApproach.gap(system, surface, origin, t, y, sense);
+                    return SurfaceApproach.gap(system, surface, origin, t, y, sense, side);
                 }
 
                 @Override public Action eventOccurred(double t, double[] y, boolean increasing) {
@@ -142,7 +142,10 @@ final class Integration {
             // (Commons Math skips a step shorter than the event's convergence, sign change and all; a loose
             // convergence would let the switch slip by near the surface, where steps are short.)
         }
-        if (surface != null) {
+        // While the approach is watched the crossing needs no handler of its own: before y - v can change sign
+        // with a finite slope, the approach test has already turned negative. (Each handler costs an
+        // interpolation of every step.)
+        if (surface != null && !approach) {
             dp.addEventHandler(new EventHandler() {
                 @Override public void init(double t0, double[] y, double t) { }
 

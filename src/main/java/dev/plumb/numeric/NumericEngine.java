@@ -50,7 +50,7 @@ public final class NumericEngine {
                           double[] start) throws SolveException {
         if (model.hasErrors()) throw new SolveException(Span.NONE, "the file has errors; it is not integrated");
         if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) return new Algebraic(model, parameterValues);
-        Formulation form = Formulation.of(model);
+        Formulation form = formulation(model);
         CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms, true, start);
         try {
             return new SolvedCase(problem, Shooting.solve(problem));
@@ -66,6 +66,20 @@ public final class NumericEngine {
                         + " as a plain condition at the end of the interval instead: " + alsoPlain.getMessage());
             }
         }
+    }
+
+    /** The formulation last worked out, with its model: it depends on the model alone, so a sweep works it out once. */
+    private record LastFormulation(Model model, Formulation form) { }
+
+    private static volatile LastFormulation last;
+
+    private static Formulation formulation(Model model) throws SolveException {
+        LastFormulation known = last;
+        // By identity: a model is an immutable record whose structural hash would cost more than the formulation.
+        if (known != null && known.model() == model) return known.form();
+        Formulation form = Formulation.of(model);
+        last = new LastFormulation(model, form);
+        return form;
     }
 
     /**

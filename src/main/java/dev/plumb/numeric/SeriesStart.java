@@ -1,10 +1,5 @@
 package dev.plumb.numeric;
 
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.DecompositionSolver;
-import org.apache.commons.math3.linear.LUDecomposition;
-import org.apache.commons.math3.linear.RealVector;
 
 /**
  * The start of an integration at a removable singular point (the centre, where m(r)/r^2 is 0/0):
@@ -66,7 +61,7 @@ final class SeriesStart {
         double[][] stage = new double[s][];
         for (int j = 0; j < s; j++) stage[j] = y0.clone();
         double[][] slope = new double[s][];
-        DecompositionSolver solver = null;
+        DenseLu solver = null;
         double previous = Double.POSITIVE_INFINITY;
         for (int iter = 0; iter < 30; iter++) {
             for (int j = 0; j < s; j++) {
@@ -97,18 +92,15 @@ final class SeriesStart {
                     }
                 }
                 for (int i = 0; i < size; i++) m[i][i] += 1.0;
-                solver = new LUDecomposition(new Array2DRowRealMatrix(m, false)).getSolver();
+                solver = DenseLu.factor(m);
+                if (solver == null) return null;
             }
-            RealVector delta;
-            try {
-                delta = solver.solve(new ArrayRealVector(g, false));
-            } catch (RuntimeException singular) {
-                return null;
-            }
+            solver.solve(g);
+            double[] delta = g;
             double change = 0;
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
-                    double d = delta.getEntry(i * n + k);
+                    double d = delta[i * n + k];
                     stage[i][k] -= d * scale[k];
                     change = Math.max(change, Math.abs(d));
                 }

@@ -37,13 +37,16 @@ final class SurfaceApproach {
      * The approach test, positive while the surface is further than {@link #SWITCH} of the way travelled
      * and negative once it is nearer (continuous, so Commons Math can locate the switch as an event).
      */
-    static double gap(RelationSystem system, Integration.Surface surface, double origin, double x, double[] y, double sense) {
+    static double gap(RelationSystem system, Integration.Surface surface, double origin, double x, double[] y, double sense,
+                      double side) {
         int i = surface.index();
         double d = y[i] - surface.value();
         double slope = system.derivativesAside(x, y)[i];
-        if (!Double.isFinite(slope)) return Math.signum(d) * sense;
-        // sense: +1 when the coordinate increases. Approaching means d and slope * sense have opposite signs.
-        return Math.signum(d) * (d + SWITCH * Math.abs(x - origin) * slope * sense);
+        if (!Double.isFinite(slope)) return side * d;
+        // sense: +1 when the coordinate increases; side: the sign of y - v where the segment began, fixed so that
+        // the test stays negative past a crossing (a sign taken afresh would turn it positive again within the
+        // same step, and Commons Math, seeing equal signs at both ends, would miss both roots).
+        return side * (d + SWITCH * Math.abs(x - origin) * slope * sense);
     }
 
     /** The local exponent p of y - v ~ s^p at state (x, y), or NaN when the relations give none. */
