@@ -24,9 +24,10 @@ final class SurfaceApproach {
 
     /**
      * Where the coordinate switches to w: when the distance left, estimated as |y - v| / |y'| (which is
-     * s/p), falls below this fraction of the distance integrated so far.
+     * s/p), falls below this fraction of the distance integrated so far. The stretch in w is smooth, so
+     * an early switch saves steps (an n = 3 polytrope: 87 steps at 0.01, 57 at 0.1, same accuracy).
      */
-    static final double SWITCH = 0.01;
+    static final double SWITCH = 0.1;
 
     private static final double MAX_EXPONENT = 64;
 
