@@ -86,7 +86,7 @@ final class SurfaceApproach {
         if (!(slope0 * sign < 0) && !(slope0 * sign > 0)) return null;
         double w0 = Math.pow(Math.abs(d), 1 / p);
         double floor = w0 * Math.max(1e-9, Math.pow(2, -900 / p));
-        double[] work = new double[n];
+        double[] work = new double[n], f = new double[n];
         boolean[] nonFinite = {false};
         FirstOrderDifferentialEquations inW = new FirstOrderDifferentialEquations() {
             @Override public int getDimension() {
@@ -98,13 +98,15 @@ final class SurfaceApproach {
                 System.arraycopy(z, 0, work, 0, n);
                 // Within the floor of the surface the relations are read at the floor: the error is of the order of
                 // the floor squared, and at w = 0 itself they may be infinite (x' ~ 1/x) or 0/0.
-                double wr = Math.max(Math.abs(w), floor);
-                work[i] = surface.value() + sign * Math.pow(wr, p);
-                double[] f = system.derivativesAside(x, work);
+                double wr = Math.max(Math.abs(w), floor), wp1 = Math.pow(wr, p - 1);
+                work[i] = surface.value() + sign * wp1 * wr;
+                // Straight into a kept array: the coordinate's integration is over, so the record of non-finite
+                // evaluations it reads may be written (the next segment clears it before it starts).
+                system.computeDerivatives(x, work, f);
                 double fi = f[i];
                 // dx/dw from sign * (y_i - v) = w^p: sign * y_i' dx = p w^(p-1) dw.
-                double dxdw = p * Math.pow(wr, p - 1) / (sign * fi);
-                boolean ok = Double.isFinite(dxdw);
+                double dxdw = p * wp1 / (sign * fi);
+                boolean ok = system.lastFinite() && Double.isFinite(dxdw);
                 for (int k = 0; k < n; k++) {
                     // The surface component is w^p itself, written back from w; it is carried along unchanged.
                     zDot[k] = k == i ? 0.0 : f[k] * dxdw;
