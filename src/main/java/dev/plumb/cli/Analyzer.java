@@ -106,6 +106,10 @@ public final class Analyzer {
                             "the numeric engine stopped on this file"));
                 }
             }
+            guarded("numeric identity", notes, () -> {
+                decideByNumbers(model, checks, closedForms);
+                return null;
+            });
             List<Check> scaling = guarded("scaling", notes, () -> new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
             if (scaling != null) checks.addAll(scaling);
             List<String> lengths = guarded("scale lengths", notes, () -> ScaleLength.find(model).stream().map(ScaleLength::describe).toList());
@@ -127,6 +131,44 @@ public final class Analyzer {
             notes.add("the " + stage + " stage stopped on this file (" + e.getClass().getSimpleName()
                     + (e.getMessage() == null ? "" : ": " + e.getMessage()) + "); its checks are undecided. Please report this.");
             return null;
+        }
+    }
+
+    /**
+     * Names the route of every decided claim and step, and gives each one the symbolic side left
+     * undecided to the numeric identity test over the parameter domain, which decides it when the
+     * relations solve there.
+     */
+    private static void decideByNumbers(Model model, List<Check> checks, Map<String, Expr> closedForms) {
+        java.util.Iterator<Stmt.Claim> claims = model.claims().iterator();
+        java.util.Iterator<Stmt.Step> steps = model.steps().iterator();
+        Map<Span, Stmt.Equation> equations = new java.util.HashMap<>();
+        while (claims.hasNext()) {
+            Stmt.Claim c = claims.next();
+            equations.put(c.span(), c.equation());
+        }
+        while (steps.hasNext()) {
+            Stmt.Step st = steps.next();
+            equations.put(st.span(), st.equation());
+        }
+        for (int i = 0; i < checks.size(); i++) {
+            Check c = checks.get(i);
+            if (!c.kind().equals("claim") && !c.kind().equals("step")) continue;
+            if (c.status() != Status.UNDECIDED) {
+                if (!c.extra().containsKey("route")) {
+                    // A profile put into the relations and boundaries is checked by substitution; the rest by proof.
+                    String m = c.message();
+                    boolean substituted = m.startsWith("meets ") || !m.contains("follows from") && m.contains(" is not met");
+                    checks.set(i, c.with("route", substituted ? "substitution" : "symbolic"));
+                }
+                continue;
+            }
+            Stmt.Equation eq = equations.get(c.span());
+            if (eq == null) continue;
+            Check decided = dev.plumb.numeric.NumericIdentity.decide(model, c.kind(), c.label(), eq, c.span(), closedForms);
+            if (decided != null) {
+                checks.set(i, decided.with("symbolic", c.message()));
+            }
         }
     }
 

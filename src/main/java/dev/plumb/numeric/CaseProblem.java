@@ -23,8 +23,8 @@ final class CaseProblem {
     /** A value the shooting adjusts: a start value of the state or an unknown constant. */
     record Unknown(String name, int component, int constant, double guess, boolean log, String guessSource, Span span) { }
 
-    /** How a condition's mismatch is measured: as a log ratio, or as a difference over a scale. */
-    record Condition(Stmt.Boundary boundary, boolean log, double scale) { }
+    /** How a condition's mismatch is measured: as a log ratio, or as a difference over a scale; target NaN when not fixed. */
+    record Condition(Stmt.Boundary boundary, boolean log, double scale, double target) { }
 
     /**
      * How far past a fixed end b a trial may run looking for the surface, in units of the interval: far
@@ -317,9 +317,9 @@ final class CaseProblem {
         Expr rhs = bd.equation().rhs();
         double target = Formulation.mentionsUnknown(form.model, rhs) ? Double.NaN : tryConstant(rhs);
         int comp = component(bd.equation().lhs());
-        if (target > 0 && Double.isFinite(target)) return new Condition(bd, true, target);
+        if (target > 0 && Double.isFinite(target)) return new Condition(bd, true, target, target);
         double s = Math.abs(target) > 0 && Double.isFinite(target) ? Math.abs(target) : comp >= 0 ? scale[comp] : 1.0;
-        return new Condition(bd, false, s);
+        return new Condition(bd, false, s, target);
     }
 
     Dimension componentDimension(int i) {
@@ -348,6 +348,18 @@ final class CaseProblem {
 
     private boolean isFreeEnd(Expr arg) {
         return form.freeEnd != null && arg instanceof Expr.Name n && n.id().equals(form.freeEnd.name());
+    }
+
+    /** Whether a boundary is measured as a mismatch (a condition, or the surface of a fixed interval). */
+    boolean conditionsInclude(Stmt.Boundary bd) {
+        if (bd == surfaceBoundary) return fixedSurface || surface.value() == 0.0;
+        for (Condition c : conditions) if (c.boundary() == bd) return true;
+        return false;
+    }
+
+    /** A fixed point of the interval, or NaN when the expression is not a fixed number. */
+    double pointOrNaN(Expr arg) {
+        return tryConstant(arg);
     }
 
     private double point(Expr arg) throws SolveException {

@@ -20,13 +20,22 @@ import org.apache.commons.math3.ode.sampling.StepInterpolator;
 final class Integration {
 
     /** Where an integration stopped. */
-    record Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach, double asymptote) {
-        Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach) {
-            this(x, y, atSurface, steps, byApproach, Double.NaN);
+    /**
+     * Where an integration stopped; {@code exponent} is the power p of the approach y - v ~ s^p when
+     * the surface was reached in w = |y - v|^(1/p), and {@code asymptote} the e-folding length when
+     * the profile only approached the surface value without reaching it (both NaN otherwise).
+     */
+    record Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach, double exponent, double asymptote) {
+        Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach, double exponent) {
+            this(x, y, atSurface, steps, byApproach, exponent, Double.NaN);
         }
 
         Stop(double x, double[] y, boolean atSurface, int steps) {
-            this(x, y, atSurface, steps, false);
+            this(x, y, atSurface, steps, false, Double.NaN);
+        }
+
+        Stop(double x, double[] y, boolean atSurface, int steps, boolean byApproach) {
+            this(x, y, atSurface, steps, byApproach, Double.NaN);
         }
     }
 
@@ -71,13 +80,13 @@ final class Integration {
                 if (forward ? b > x && b < next : b < x && b > next) next = b;
             }
             lockBranches(0.5 * (x + next));
-            Stop s = segment(x, y, next, surface);
+            Stop s = segment(x, y, next, surface, x0, true);
             steps += s.steps();
             y = s.y();
-            if (s.atSurface()) return new Stop(s.x(), y, true, steps, s.byApproach());
+            if (s.atSurface()) return new Stop(s.x(), y, true, steps, s.byApproach(), s.exponent());
             if (!Double.isNaN(s.asymptote())) {
                 freeBranches();
-                return new Stop(s.x(), y, false, steps, false, s.asymptote());
+                return new Stop(s.x(), y, false, steps, false, Double.NaN, s.asymptote());
             }
             // The integrator ends a span within an ulp of where it was asked to; taken as is, the rest would
             // be a span too short to integrate (Commons Math refuses it as "too small"), so the segment's end
@@ -108,7 +117,12 @@ final class Integration {
         for (ExprCompiler.CoordinateCondition c : conditions) system.frame[c.lockSlot()] = Double.NaN;
     }
 
-    private Stop segment(double x0, double[] y0, double x1, Surface surface) throws SolveException {
+    /**
+     * @param origin   where the integration began (the approach to a surface is judged against the way travelled)
+     * @param approach whether to switch to {@link SurfaceApproach} near the surface
+     */
+    private Stop segment(double x0, double[] y0, double x1, Surface surface, double origin, boolean approach)
+            throws SolveException {
         double span = Math.abs(x1 - x0);
         if (span <= 1e-11 * Math.max(Math.abs(x0), Math.abs(x1))) return shortSegment(x0, y0, x1, surface);
         DormandPrince853Integrator dp = new Guarded(system, Math.min(minStep, span * 1e-3), span, absTol, relTol);
@@ -136,8 +150,31 @@ final class Integration {
                 }
             }
         });
-        boolean[] hit = {false};
-        if (surface != null) {
+        boolean[] hit = {false}, near = {false};
+        if (surface != null && approach) {
+            double sense = x1 > x0 ? 1.0 : -1.0, side = y0[surface.index()] >= surface.value() ? 1.0 : -1.0;
+            dp.addEventHandler(new EventHandler() {
+                @Override public void init(double t0, double[] y, double t) { }
+
+                @Override public double g(double t, double[] y) {
+                    return SurfaceApproach.gap(system, surface, origin, t, y, sense, side);
+                }
+
+                @Override public Action eventOccurred(double t, double[] y, boolean increasing) {
+                    if (increasing) return Action.CONTINUE;
+                    near[0] = true;
+                    return Action.STOP;
+                }
+
+                @Override public void resetState(double t, double[] y) { }
+            }, Math.max(span / 16, minStep * 10), Math.max(1e-9 * span, minStep), 200);
+            // (Commons Math skips a step shorter than the event's convergence, sign change and all; a loose
+            // convergence would let the switch slip by near the surface, where steps are short.)
+        }
+        // While the approach is watched the crossing needs no handler of its own: before y - v can change sign
+        // with a finite slope, the approach test has already turned negative. (Each handler costs an
+        // interpolation of every step.)
+        if (surface != null && !approach) {
             dp.addEventHandler(new EventHandler() {
                 @Override public void init(double t0, double[] y, double t) { }
 
@@ -156,9 +193,17 @@ final class Integration {
         double[] y = y0.clone();
         try {
             double end = dp.integrate(system, x0, y0.clone(), x1, y);
+            if (near[0] && !hit[0]) {
+                Stop tail = SurfaceApproach.finish(system, surface, end, y, absTol, relTol, minStep * 10);
+                if (tail != null) return new Stop(tail.x(), tail.y(), true, steps[0] + tail.steps(), false, tail.exponent());
+                // Not a power-law approach after all: go on in the coordinate, watching only for the crossing.
+                Stop rest = segment(end, y, x1, surface, origin, false);
+                return new Stop(rest.x(), rest.y(), rest.atSurface(), steps[0] + rest.steps(), rest.byApproach(), rest.exponent(),
+                        rest.asymptote());
+            }
             if (hit[0]) {
                 double asymptote = asymptote(stepStart[0], stepStartY[0], surface);
-                if (!Double.isNaN(asymptote)) return new Stop(end, y, false, steps[0], false, asymptote);
+                if (!Double.isNaN(asymptote)) return new Stop(end, y, false, steps[0], false, Double.NaN, asymptote);
             }
             return new Stop(end, y, hit[0], steps[0]);
         } catch (NumberIsTooSmallException stalled) {

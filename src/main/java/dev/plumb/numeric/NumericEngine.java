@@ -40,17 +40,26 @@ public final class NumericEngine {
 
     static Solution solve(Model model, Map<String, Double> parameterValues, NumericOptions options, Map<String, Expr> closedForms)
             throws SolveException {
+        return solve(model, parameterValues, options, closedForms, null);
+    }
+
+    /**
+     * @param start the shooting unknowns to start from (a neighbouring solve's, in a sweep), or null for the
+     *              closed-form and dimensional guesses
+     */
+    static Solution solve(Model model, Map<String, Double> parameterValues, NumericOptions options, Map<String, Expr> closedForms,
+                          double[] start) throws SolveException {
         if (model.hasErrors()) throw new SolveException(Span.NONE, "the file has errors; it is not integrated");
         if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) return new Algebraic(model, parameterValues);
-        Formulation form = Formulation.of(model);
-        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms, true, null);
+        Formulation form = formulation(model);
+        CaseProblem problem = new CaseProblem(form, parameterValues, options, closedForms, true, start);
         try {
             return new SolvedCase(problem, Shooting.solve(problem));
         } catch (SolveException byEvent) {
             if (!problem.fixedSurface) throw byEvent;
             // The surface was sought as an event near the fixed end; a zero the profile only touches there
             // is not an event, so the same boundary is tried as a plain condition at the end.
-            CaseProblem plain = new CaseProblem(form, parameterValues, options, closedForms, false, null);
+            CaseProblem plain = new CaseProblem(form, parameterValues, options, closedForms, false, start);
             try {
                 return new SolvedCase(plain, Shooting.solve(plain));
             } catch (SolveException alsoPlain) {
@@ -59,6 +68,20 @@ public final class NumericEngine {
                         + " taken as a condition at the end; sought as a surface instead, it failed too)");
             }
         }
+    }
+
+    /** The formulation last worked out, with its model: it depends on the model alone, so a sweep works it out once. */
+    private record LastFormulation(Model model, Formulation form) { }
+
+    private static volatile LastFormulation last;
+
+    private static Formulation formulation(Model model) throws SolveException {
+        LastFormulation known = last;
+        // By identity: a model is an immutable record whose structural hash would cost more than the formulation.
+        if (known != null && known.model() == model) return known.form();
+        Formulation form = Formulation.of(model);
+        last = new LastFormulation(model, form);
+        return form;
     }
 
     /**

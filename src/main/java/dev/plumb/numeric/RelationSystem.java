@@ -205,6 +205,18 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
         return out;
     }
 
+    /**
+     * The derivatives at one point, in a fresh array (NaN where not finite), without touching the record
+     * of non-finite evaluations the integrator reads: for tests of the state between steps.
+     */
+    double[] derivativesAside(double x, double[] y) {
+        boolean was = nonFiniteSinceCheck, last = lastFinite;
+        double[] out = derivatives(x, y);
+        nonFiniteSinceCheck = was;
+        lastFinite = last;
+        return out;
+    }
+
     List<String> componentNames() {
         return java.util.stream.IntStream.range(0, form.stateSize).mapToObj(form::componentName).toList();
     }

@@ -1,11 +1,5 @@
 package dev.plumb.numeric;
 
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.LUDecomposition;
-import org.apache.commons.math3.linear.RealVector;
 
 /**
  * The start of an integration at a removable singular point (the centre, where m(r)/r^2 is 0/0):
@@ -103,57 +97,72 @@ final class SeriesStart {
         return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : String.format("%.6g", v);
     }
 
-    /** The value at a+h of the degree-s collocation polynomial, or null when Newton fails. */
+    /**
+     * The value at a+h of the degree-s collocation polynomial, or null when Newton fails. The Newton
+     * matrix is factored once and kept while it converges fast (simplified Newton): on a start interval
+     * short enough for the series, the relations' Jacobian barely changes between iterations.
+     */
     private static double[] collocate(RelationSystem f, double a, double[] y0, double h, int s, double[] scale) {
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(s, 0.0, 1.0);
-        double[] c = new double[s], w = new double[s];
-        for (int j = 0; j < s; j++) {
-            c[j] = rule.getPoint(j);
-            w[j] = rule.getWeight(j);
-        }
-        double[][] integ = integrationMatrix(c, rule);
+        CollocationRule rule = CollocationRule.of(s);
+        double[] c = rule.nodes, w = rule.weights;
+        double[][] integ = rule.integration;
         int n = y0.length, size = n * s;
         double[][] stage = new double[s][];
         for (int j = 0; j < s; j++) stage[j] = y0.clone();
         double[][] slope = new double[s][];
+        DenseLu solver = null;
+        double previous = Double.POSITIVE_INFINITY;
         for (int iter = 0; iter < 30; iter++) {
-            double[][] jac = new double[s][];
             for (int j = 0; j < s; j++) {
                 slope[j] = f.derivatives(a + c[j] * h, stage[j]);
                 if (!finite(slope[j])) return null;
-                jac[j] = jacobian(f, a + c[j] * h, stage[j], slope[j], scale);
             }
-            // Residual G = Y - y0 - h A F(Y) and its Jacobian I - h A (x) J, both in units of each component's
-            // scale: unscaled, a mass of 1e30 kg beside a dimensionless u makes pivots that look singular.
+            // Residual G = Y - y0 - h A F(Y) and its Jacobian I - h A (x) J, each component divided by its scale:
+            // in SI the entries span forty decades (a mass beside a dimensionless u) and LU took them for singular.
             double[] g = new double[size];
-            double[][] m = new double[size][size];
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
                     double sum = 0;
                     for (int j = 0; j < s; j++) sum += integ[i][j] * slope[j][k];
                     g[i * n + k] = (stage[i][k] - y0[k] - h * sum) / scale[k];
-                    m[i * n + k][i * n + k] += 1.0;
-                    for (int j = 0; j < s; j++) {
-                        for (int l = 0; l < n; l++) m[i * n + k][j * n + l] -= h * integ[i][j] * jac[j][k * n + l] * scale[l] / scale[k];
-                    }
                 }
             }
-            RealVector delta;
-            try {
-                delta = new LUDecomposition(new Array2DRowRealMatrix(m, false)).getSolver().solve(new ArrayRealVector(g, false));
-            } catch (RuntimeException singular) {
-                return null;
+            boolean fresh = solver == null;
+            if (fresh) {
+                double[][] m = new double[size][size];
+                for (int j = 0; j < s; j++) {
+                    double[] jac = jacobian(f, a + c[j] * h, stage[j], slope[j], scale);
+                    for (int i = 0; i < s; i++) {
+                        for (int k = 0; k < n; k++) {
+                            for (int l = 0; l < n; l++) {
+                                m[i * n + k][j * n + l] -= h * integ[i][j] * jac[k * n + l] * scale[l] / scale[k];
+                            }
+                        }
+                    }
+                }
+                for (int i = 0; i < size; i++) m[i][i] += 1.0;
+                solver = DenseLu.factor(m);
+                if (solver == null) return null;
             }
+            solver.solve(g);
+            double[] delta = g;
             double change = 0;
             for (int i = 0; i < s; i++) {
                 for (int k = 0; k < n; k++) {
-                    double d = delta.getEntry(i * n + k);
+                    double d = delta[i * n + k];
                     stage[i][k] -= d * scale[k];
                     change = Math.max(change, Math.abs(d));
                 }
             }
             if (!(change < 1e300)) return null;
             if (change < 1e-15) break;
+            if (change > 0.1 * previous) {
+                // Converging slowly: with a fresh matrix that is rounding noise, and more iterations gain nothing;
+                // with a kept one the matrix is stale and is factored afresh at the current stages.
+                if (fresh && change < 1e-12) break;
+                solver = null;
+            }
+            previous = change;
         }
         double[] out = y0.clone();
         for (int j = 0; j < s; j++) {
@@ -162,26 +171,6 @@ final class SeriesStart {
             for (int k = 0; k < n; k++) out[k] += h * w[j] * slope[j][k];
         }
         return out;
-    }
-
-    /** A[i][j] = integral from 0 to c_i of the j-th Lagrange basis polynomial on the nodes c. */
-    private static double[][] integrationMatrix(double[] c, GaussIntegrator rule) {
-        int s = c.length;
-        double[][] a = new double[s][s];
-        for (int i = 0; i < s; i++) {
-            for (int j = 0; j < s; j++) {
-                double sum = 0;
-                for (int q = 0; q < s; q++) sum += rule.getWeight(q) * c[i] * lagrange(c, j, c[i] * rule.getPoint(q));
-                a[i][j] = sum;
-            }
-        }
-        return a;
-    }
-
-    private static double lagrange(double[] c, int j, double t) {
-        double p = 1;
-        for (int k = 0; k < c.length; k++) if (k != j) p *= (t - c[k]) / (c[j] - c[k]);
-        return p;
     }
 
     /** Column-major by component: entry [k*n + l] is d f_k / d y_l. */

@@ -49,7 +49,9 @@ final class Shooting {
         }
         double norm = norm(f);
         List<String> history = new ArrayList<>();
-        double[][] jac = null;
+        // The first Jacobian comes from the scalings the relations allow when they fix it (no integration);
+        // if a step along it fails, the finite differences take over.
+        double[][] jac = Homology.jacobian(p, t, f);
         for (int it = 0; it < MAX_ITERATIONS; it++) {
             if (norm <= tol) return new Result(t, z, it, norm);
             // A fresh finite-difference Jacobian costs one integration per unknown; after a full Newton

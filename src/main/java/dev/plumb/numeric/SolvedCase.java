@@ -8,13 +8,14 @@ final class SolvedCase implements Solution {
     private final CaseProblem problem;
     private final Trajectory trajectory;
     private final double[] unknowns;
-    private final String method;
+    private final Shooting.Result result;
+    private String method;
 
     SolvedCase(CaseProblem problem, Shooting.Result result) {
         this.problem = problem;
         this.trajectory = result.trajectory();
         this.unknowns = result.z().clone();
-        this.method = describe(problem, result);
+        this.result = result;
     }
 
     /** The case solved again at other options, from this solution's unknowns and with its boundaries read the same way. */
@@ -23,13 +24,20 @@ final class SolvedCase implements Solution {
         return new SolvedCase(p, Shooting.solve(p));
     }
 
+    /** The shooting unknowns of the solution (log or scaled coordinates), for a neighbouring solve to start from. */
+    double[] unknowns() {
+        return unknowns.clone();
+    }
+
     @Override
     public synchronized double evaluate(Expr quantity) throws SolveException {
         return new PointEvaluator(problem.form, problem.values, trajectory).evaluate(quantity);
     }
 
     @Override
-    public String method() {
+    public synchronized String method() {
+        // Formatted on demand: a sweep asks for thousands of solutions and none of their descriptions.
+        if (method == null) method = describe(problem, result);
         return method;
     }
 
@@ -66,6 +74,9 @@ final class SolvedCase implements Solution {
                     .append(r.trajectory().surfaceByApproach
                             ? " (the relations are undefined past it, so it was approached until the step size reached "
                             + String.format("%.0e", p.integration.minStep) + ")"
+                            : !Double.isNaN(r.trajectory().surfaceExponent) ? String.format(" (the last stretch integrated in w = |%s - %s|^(1/p), "
+                            + "which reaches it linearly; p = %.6g from the relations)", p.surface.description(), SeriesStart.trim(p.surface.value()),
+                            r.trajectory().surfaceExponent)
                             : " by event detection");
         }
         if (!p.unknowns.isEmpty()) {

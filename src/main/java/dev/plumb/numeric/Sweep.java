@@ -12,7 +12,9 @@ import java.util.ArrayList;
 
 /**
  * Solves one model at many parameter points on several threads (each solve compiles its own
- * evaluators, so solves share nothing mutable) and evaluates one quantity at each.
+ * evaluators, so solves share nothing mutable) and evaluates one quantity at each. Each thread
+ * takes a contiguous run of points and starts every shooting from its neighbours' solutions
+ * (see {@link Continuation}), which the dimensional first guesses only approximate.
  */
 public final class Sweep {
 
@@ -38,13 +40,8 @@ public final class Sweep {
             for (int c = 0; c < chunks; c++) {
                 int from = (int) ((long) points.size() * c / chunks), to = (int) ((long) points.size() * (c + 1) / chunks);
                 work.add(pool.submit(() -> {
-                    for (int i = from; i < to; i++) {
-                        try {
-                            out[i] = NumericEngine.solve(model, points.get(i), options).evaluate(quantity);
-                        } catch (SolveException failed) {
-                            out[i] = Double.NaN;
-                        }
-                    }
+                    Continuation near = new Continuation();
+                    for (int i = from; i < to; i++) out[i] = solveOne(model, points.get(i), quantity, options, near);
                 }));
             }
             for (Future<?> f : work) {
@@ -58,5 +55,32 @@ public final class Sweep {
             pool.shutdownNow();
         }
         return out;
+    }
+
+    /**
+     * One point of the sweep, started from the continuation's prediction; when that start fails, solved
+     * again from the guesses, so a point's verdict never depends on its neighbours (only its last digits do).
+     */
+    private static double solveOne(Model model, Map<String, Double> point, Expr quantity, NumericOptions options,
+                                   Continuation near) {
+        double[] start = near.predict(point);
+        if (start != null) {
+            try {
+                Solution s = NumericEngine.solve(model, point, options, Map.of(), start);
+                double v = s.evaluate(quantity);
+                near.record(point, s);
+                return v;
+            } catch (SolveException fromNeighbour) {
+                // Fall through to a solve from the guesses.
+            }
+        }
+        try {
+            Solution s = NumericEngine.solve(model, point, options, Map.of(), null);
+            double v = s.evaluate(quantity);
+            near.record(point, s);
+            return v;
+        } catch (SolveException failed) {
+            return Double.NaN;
+        }
     }
 }

@@ -22,6 +22,8 @@ final class Trajectory implements PointEvaluator.States {
     double surfaceX = Double.NaN;
     double[] surfaceState;
     boolean surfaceByApproach;
+    /** The exponent p of the last stretch integrated in |y - v|^(1/p) (see SurfaceApproach), NaN when none was. */
+    double surfaceExponent = Double.NaN;
     int steps;
     /** The lowest value of each state component over the main integration, and where it was. */
     double[] lowest, lowestAt;
@@ -108,6 +110,7 @@ final class Trajectory implements PointEvaluator.States {
             t.surfaceX = stop.x();
             t.surfaceState = stop.y().clone();
             t.surfaceByApproach = stop.byApproach();
+            t.surfaceExponent = stop.exponent();
             t.states.put(stop.x(), stop.y().clone());
         } else {
             t.states.put(stop.x(), stop.y().clone());

@@ -39,8 +39,7 @@ final class Symja {
     Symja(double timeoutSeconds) {
         this.timeoutSeconds = timeoutSeconds;
         PrintStream sink = new PrintStream(OutputStream.nullOutputStream());
-        EvalEngine engine = new EvalEngine("plumb", Config.DEFAULT_RECURSION_LIMIT, Config.DEFAULT_ITERATION_LIMIT,
-                sink, sink, false);
+        EvalEngine engine = new EvalEngine("plumb", RECURSION_LIMIT, ITERATION_LIMIT, sink, sink, false);
         engine.setFileSystemEnabled(false);
         evaluator = new ExprEvaluator(engine, true, (short) 0);
     }
@@ -59,6 +58,8 @@ final class Symja {
         // way on a quiet machine and a busy one ((1+x)^1000000 or x^1e6 at a rational point).
         Config.MAX_BIT_LENGTH = 20_000;
         Config.MAX_POLYNOMIAL_DEGREE = 10_000;
+        // Time limits inside Symja (its own TimeConstrained) would run on the clock: the session's CPU budget bounds them.
+        Config.TIMECONSTRAINED_NO_THREAD = true;
         Config.MAX_AST_SIZE = 1_000_000;
     }
 
@@ -98,6 +99,13 @@ final class Symja {
         return timeoutSeconds;
     }
 
+    /**
+     * Symja's own bounds on one evaluation, the same on every machine: deep enough for the simplification
+     * of a layered atmosphere's closed form (the defaults, 512 and 1000, are not), and far below what the
+     * worker's stack holds.
+     */
+    private static final int RECURSION_LIMIT = 4096, ITERATION_LIMIT = 100_000;
+
     /** Evaluates {@code e} within the time limit. */
     IExpr eval(IExpr e) {
         return eval(e, timeoutSeconds);
@@ -123,6 +131,9 @@ final class Symja {
                 IExpr result = job.get(10, java.util.concurrent.TimeUnit.MILLISECONDS);
                 if (stopped || result == S.$Aborted) throw new Failure(stopped ? timedOutMessage(seconds)
                         : "the computer algebra system aborted the computation", stopped);
+                if (result.isAST(S.Hold) && !e.isAST(S.Hold)) {
+                    throw new Failure("the computer algebra system gave up (its recursion or iteration limit)", false);
+                }
                 return result;
             } catch (java.util.concurrent.TimeoutException running) {
                 long cpu = w.cpu() - cpuStart, wall = System.nanoTime() - wallStart;
@@ -174,7 +185,8 @@ final class Symja {
         Worker() {
             java.util.concurrent.CountDownLatch started = new java.util.concurrent.CountDownLatch(1);
             pool = java.util.concurrent.Executors.newSingleThreadExecutor(r -> {
-                Thread t = new Thread(r, "plumb-symja");
+                // Symja recurses deeply; a stack of its own keeps that off whatever the JVM's default is.
+                Thread t = new Thread(null, r, "plumb-symja", 256L << 20);
                 t.setDaemon(true);
                 thread = t;
                 return t;
