@@ -78,12 +78,12 @@ final class ScalingInputs {
         return List.of();
     }
 
-    /** Every literal with a dimension, named as written ({@code 100 [km]}). */
+    /** Every literal with a dimension, named as written in parentheses ({@code (100 [km])}) so that a power of it reads. */
     private static void literals(Expr e, Map<String, Dimension> out) {
         if (e instanceof Expr.Quantity q) {
             try {
                 Dimension d = UnitParser.parse(q.unit()).dimension();
-                if (!d.isNone()) out.putIfAbsent(q.text() + " [" + q.unit() + "]", d);
+                if (!d.isNone()) out.putIfAbsent("(" + q.text() + " [" + q.unit() + "])", d);
             } catch (UnitException ex) {
                 // An unknown unit is reported where it is written; here it only cannot count.
             }

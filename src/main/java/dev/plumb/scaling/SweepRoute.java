@@ -55,7 +55,7 @@ final class SweepRoute {
                 parts.add(p + " could not be swept (" + why + ")");
                 continue;
             }
-            String range = String.format(Locale.ROOT, "%s from %.4g to %.4g%s", p, s.from(), s.to(), unit);
+            String range = p + " from " + value(s.from()) + " to " + value(s.to()) + unit;
             if (!s.straight()) {
                 double a = endExponent(q, base, s, s.from(), s.localSlopes()[0]);
                 double b = endExponent(q, base, s, s.to(), s.localSlopes()[s.localSlopes().length - 1]);
@@ -69,12 +69,12 @@ final class SweepRoute {
                 continue;
             }
             exponents.put(p, s.slope());
-            parts.add(String.format(Locale.ROOT, "%s: exponent %.6f±%.1e, straight within %.1g", range, s.slope(),
+            parts.add(String.format(Locale.ROOT, "%s: exponent %s±%.1e, straight within %.1g", range, exponent(s.slope()),
                     Math.max(s.standardError(), s.slopeNoise()), s.straightnessAllowance()));
             double off = s.slope() - w.getValue();
             if (Math.abs(off) > s.exponentAllowance()) {
-                differences.add(String.format(Locale.ROOT, "exponent of %s is %.6f, claimed %s: off by %.3g, more than the %.1g allowed",
-                        p, s.slope(), ScalingChecker.fmt(w.getValue()), off, s.exponentAllowance()));
+                differences.add(String.format(Locale.ROOT, "exponent of %s is %s, claimed %s: off by %.3g, more than the %.1g allowed",
+                        p, exponent(s.slope()), ScalingChecker.fmt(w.getValue()), off, s.exponentAllowance()));
             }
         }
         String finding = "around case " + base.label() + ", " + POINTS + " points per sweep: " + String.join("; ", parts);
@@ -113,6 +113,21 @@ final class SweepRoute {
         out.add(new double[] {v / 10, v * 10});
         out.add(new double[] {v / Math.pow(10, 0.25), v * Math.pow(10, 0.25)});
         return out;
+    }
+
+    /** A fitted exponent to six decimals, without the minus sign of a rounded-away negative zero. */
+    private static String exponent(double e) {
+        String out = String.format(Locale.ROOT, "%.6f", e);
+        return out.equals("-0.000000") ? "0.000000" : out;
+    }
+
+    /** A parameter value to four digits, plain where it reads so (11000 rather than 1.100e+04). */
+    private static String value(double v) {
+        double a = Math.abs(v);
+        if (a >= 1e-3 && a < 1e7) {
+            return new java.math.BigDecimal(v).round(new java.math.MathContext(4)).stripTrailingZeros().toPlainString();
+        }
+        return String.format(Locale.ROOT, "%.4g", v);
     }
 
     private String unit(String p) {

@@ -162,6 +162,21 @@ class ScalingVerdictsTest {
     }
 
     @Test
+    void routesThatContradictEachOtherLeaveTheClaimUndecidedAndSaySo() throws Exception {
+        // A closed form with a wrong power of R, as if the symbolic side had erred: dimensions and
+        // the numeric solve of the uniform sphere both find R^-4, so the claim cannot be settled.
+        Model m = model(Files.readString(Path.of("derivations/uniform-sphere.plumb")));
+        Map<String, dev.plumb.lang.Expr> wrong = Map.of("P(0)", Parser.parseExpression("3/(8*pi)*G*M^2/R^3"));
+        NumericOptions sweep = new NumericOptions(1e-10, 1e-12, false);
+        Check c = new ScalingChecker(m, wrong, e -> Optional.of(new SolvedQuantity(m, e, sweep))).checkAll().get(0);
+        assertEquals(Status.UNDECIDED, c.status(), c.message());
+        assertEquals(Boolean.TRUE, c.extra().get("contradiction"));
+        assertTrue(c.message().startsWith("the routes contradict each other"), c.message());
+        assertTrue(c.message().contains("dimensions and numeric sweep find the claimed exponents, but closed form: exponent of R is -3, claimed -4"),
+                c.message());
+    }
+
+    @Test
     void isothermalScaleHeightAndThePressureThereHold() throws Exception {
         // H = k_B T / (mu m_u g) is the scale height, and P(H) = P0/e: P(H) goes as P0 alone.
         String text = Files.readString(Path.of("derivations/isothermal-atmosphere.plumb"))
