@@ -80,25 +80,14 @@ final class ScalingInputs {
 
     /** Every literal with a dimension, named as written in parentheses ({@code (100 [km])}) so that a power of it reads. */
     private static void literals(Expr e, Map<String, Dimension> out) {
-        if (e instanceof Expr.Quantity q) {
+        References.walk(e, x -> {
+            if (!(x instanceof Expr.Quantity q)) return;
             try {
                 Dimension d = UnitParser.parse(q.unit()).dimension();
                 if (!d.isNone()) out.putIfAbsent("(" + q.text() + " [" + q.unit() + "])", d);
             } catch (UnitException ex) {
                 // An unknown unit is reported where it is written; here it only cannot count.
             }
-        } else if (e instanceof Expr.Call c) {
-            c.args().forEach(a -> literals(a, out));
-        } else if (e instanceof Expr.Neg n) {
-            literals(n.operand(), out);
-        } else if (e instanceof Expr.Binary b) {
-            literals(b.left(), out);
-            literals(b.right(), out);
-        } else if (e instanceof Expr.If i) {
-            literals(i.condition().left(), out);
-            literals(i.condition().right(), out);
-            literals(i.then(), out);
-            literals(i.otherwise(), out);
-        }
+        });
     }
 }

@@ -135,6 +135,31 @@ class ScalingVerdictsTest {
     }
 
     @Test
+    void aLengthWrittenAsALiteralIsAScaleDimensionsCannotIgnore() {
+        // Density falling off over 1 km: P(D) = rho0 g L (1 - exp(-D/L)), L = 1 km, so
+        // d ln P / d ln D = x / (e^x - 1) with x = D/L. Without the literal among the inputs,
+        // dimensions would take rho0*g*D as forced and pass the claim.
+        Model m = model("""
+                param rho0 [kg/m^3] > 0
+                param g [m/s^2] > 0
+                param D [m] > 0
+                coord z [m] from 0 to D
+                unknown P(z) [Pa]
+                relation balance: P'(z) = rho0*g*exp(-z/(1 [km]))
+                boundary top: P(0) = 0
+                scaling s: P(D) ~ rho0*g*D
+                case c: rho0 = 1025 [kg/m^3], g = 9.80665 [m/s^2], D = 3 [km]
+                """);
+        Check c = checks(m).get(0);
+        assertEquals(Status.FAILS, c.status(), c.message());
+        assertTrue(c.message().contains("(1 [km])"), c.message());
+        assertTrue(c.message().contains("dimensions alone do not fix the exponents"), c.message());
+        double[] ab = drift(c.message(), "D");
+        assertEquals(0.3 / Math.expm1(0.3), ab[0], 2e-5, c.message());
+        assertEquals(30 / Math.expm1(30), ab[1], 2e-5, c.message());
+    }
+
+    @Test
     void polytropeThreeCentralPressureHoldsByHomology() throws Exception {
         // Homology: polytropes of one index are scaled copies, so P(0) = C_n G M^2 / R^4 with a
         // pure number C_n (Chandrasekhar 1939, ch. IV): exponents 1, 2, -4, exactly.
