@@ -15,6 +15,7 @@ import dev.plumb.numeric.Solution;
 import dev.plumb.numeric.SolveException;
 import dev.plumb.report.Analysis;
 import dev.plumb.scaling.Monomial;
+import dev.plumb.scaling.SolvedQuantity;
 import dev.plumb.scaling.Sweep;
 import dev.plumb.units.Rational;
 import dev.plumb.units.UnitCatalog;
@@ -48,10 +49,7 @@ final class CaseAnalysis {
 
     /** The quantity as a function of the free parameters, always by solving the relations numerically. */
     Optional<Sweep.Quantity> numericQuantity(Expr e) {
-        if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) {
-            return Optional.of(p -> new ConstantEvaluator(n -> model.symbols().get(n), p).evaluate(e));
-        }
-        return Optional.of(p -> NumericEngine.solve(model, p, SWEEP_OPTIONS).evaluate(e));
+        return Optional.of(new SolvedQuantity(model, e, SWEEP_OPTIONS));
     }
 
     /** The quantity as a function of the free parameters: its closed form when known, else a numeric solve. */

@@ -59,21 +59,27 @@ public final class References {
     }
 
     private static void collect(Expr e, Set<String> out) {
-        if (e instanceof Expr.Name n) {
-            out.add(n.id());
-        } else if (e instanceof Expr.Call c) {
-            out.add(c.callee());
-            c.args().forEach(a -> collect(a, out));
+        walk(e, x -> {
+            if (x instanceof Expr.Name n) out.add(n.id());
+            if (x instanceof Expr.Call c) out.add(c.callee());
+        });
+    }
+
+    /** Visits {@code e} and every expression inside it, the operands of an {@code if} condition included. */
+    public static void walk(Expr e, java.util.function.Consumer<Expr> visit) {
+        visit.accept(e);
+        if (e instanceof Expr.Call c) {
+            c.args().forEach(a -> walk(a, visit));
         } else if (e instanceof Expr.Neg n) {
-            collect(n.operand(), out);
+            walk(n.operand(), visit);
         } else if (e instanceof Expr.Binary b) {
-            collect(b.left(), out);
-            collect(b.right(), out);
+            walk(b.left(), visit);
+            walk(b.right(), visit);
         } else if (e instanceof Expr.If i) {
-            collect(i.condition().left(), out);
-            collect(i.condition().right(), out);
-            collect(i.then(), out);
-            collect(i.otherwise(), out);
+            walk(i.condition().left(), visit);
+            walk(i.condition().right(), visit);
+            walk(i.then(), visit);
+            walk(i.otherwise(), visit);
         }
     }
 }

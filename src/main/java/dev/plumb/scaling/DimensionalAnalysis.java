@@ -107,6 +107,21 @@ public record DimensionalAnalysis(Map<String, Dimension> inputs, int rank, Optio
         return b == 0 ? Math.abs(a) : gcd(b, a % b);
     }
 
+    /**
+     * Whether dimensions alone fix the quantity's exponents in {@code free}: some product of the
+     * inputs has its dimension, and no dimensionless group holds any of {@code free} (a group of
+     * constants and fixed parameters alone does not vary, so it cannot bend a scaling).
+     */
+    public boolean fixesExponentsOf(java.util.Collection<String> free) {
+        if (exponents.isEmpty()) return false;
+        return groups.stream().noneMatch(g -> free.stream().anyMatch(p -> !g.getOrDefault(p, Rational.ZERO).isZero()));
+    }
+
+    /** The dimensionless groups that hold at least one of {@code free}: the ones a scaling can depend on. */
+    public List<Map<String, Rational>> groupsHolding(java.util.Collection<String> free) {
+        return groups.stream().filter(g -> free.stream().anyMatch(p -> !g.getOrDefault(p, Rational.ZERO).isZero())).toList();
+    }
+
     /** The number of dimensionless groups including the quantity itself (Buckingham's k + 1 − rank). */
     public int groupCountWithQuantity() {
         return exponents.isPresent() ? groups.size() + 1 : groups.size();

@@ -3,7 +3,6 @@ package dev.plumb.scaling;
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Stmt;
-import dev.plumb.model.CaseValues;
 import dev.plumb.model.Check;
 import dev.plumb.model.ConstantEvaluator;
 import dev.plumb.model.Model;
@@ -14,7 +13,6 @@ import dev.plumb.units.Dimension;
 import dev.plumb.units.Rational;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
-import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -25,12 +23,11 @@ import java.util.function.Function;
 /**
  * Checks {@code scaling A ~ B} lines three ways — from the closed form, by dimensional analysis,
  * and by numeric sweeps — and reports them side by side. A claim holds when A and B have the same
- * exponent in every free parameter.
+ * exponent in every free parameter. A route that decides (holds or fails) outweighs one that
+ * cannot; routes that decide both ways leave the claim undecided and say that they contradict
+ * each other, since one of them is then wrong and the user should know which way each went.
  */
 public final class ScalingChecker {
-
-    /** Numeric slopes agree with a claimed exponent within this, or four standard errors if larger. */
-    static final double SLOPE_TOLERANCE = 1e-4;
 
     private final Model model;
     private final Map<String, Expr> closedForms;
@@ -54,43 +51,9 @@ public final class ScalingChecker {
         return out;
     }
 
-    /** The dimensional inputs a quantity can depend on: free and dimensional fixed parameters, constants. */
+    /** The dimensional inputs a quantity can depend on: constants, fixed and free parameters, literals with units. */
     public Map<String, Dimension> inputs(Expr quantity) {
-        // A quantity that needs no solving depends only on what it mentions (through definitions);
-        // a profile value or an unknown constant depends on everything the relations and boundaries mention.
-        Set<String> names = transitive(References.names(quantity));
-        boolean solved = names.stream().anyMatch(n -> model.symbol(n).orElse(null) instanceof Symbol.Profile
-                || model.symbol(n).orElse(null) instanceof Symbol.UnknownConstant);
-        if (solved) {
-            for (Stmt s : model.program().statements()) {
-                if (s instanceof Stmt.Relation || s instanceof Stmt.Boundary || s instanceof Stmt.Let || s instanceof Stmt.Coord) {
-                    names.addAll(References.names(s));
-                }
-            }
-        }
-        // Constants first, then fixed and free parameters: monomials then read as G*M^2*R^(-4).
-        Map<String, Dimension> out = new LinkedHashMap<>();
-        for (Symbol s : model.symbols(Symbol.Builtin.class)) {
-            if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
-        }
-        for (Symbol s : model.symbols(Symbol.FixedParam.class)) {
-            if (!s.dimension().isNone() && names.contains(s.name())) out.put(s.name(), s.dimension());
-        }
-        for (Symbol.FreeParam p : model.freeParams()) {
-            if (names.contains(p.name())) out.put(p.name(), p.dimension());
-        }
-        return out;
-    }
-
-    private Set<String> transitive(Set<String> start) {
-        Set<String> out = new LinkedHashSet<>();
-        java.util.ArrayDeque<String> todo = new java.util.ArrayDeque<>(start);
-        while (!todo.isEmpty()) {
-            String n = todo.pop();
-            if (!out.add(n)) continue;
-            if (model.symbol(n).orElse(null) instanceof Symbol.Definition d) todo.addAll(References.names(d.body()));
-        }
-        return out;
+        return ScalingInputs.of(model, quantity);
     }
 
     private Check check(Stmt.Scaling s) {
@@ -101,74 +64,119 @@ public final class ScalingChecker {
             return Check.of("scaling", label, s.span(), Status.UNDECIDED,
                     "the right side " + ExprPrinter.print(s.rhs()) + " is not a power law (a product of powers)");
         }
-        Map<String, Double> want = new LinkedHashMap<>();
-        for (String p : free) want.put(p, claimed.get().getOrDefault(p, Rational.ZERO).toDouble());
-
-        List<String> routes = new ArrayList<>();
-        List<String> differences = new ArrayList<>();
-        Map<String, Object> found = null;
-
-        Optional<Map<String, Rational>> exact = closedFormExponents(s.lhs());
-        if (exact.isPresent()) {
-            Map<String, Object> e = exactOnFree(exact.get(), free);
-            found = e;
-            routes.add("closed form: " + DimensionalAnalysis.monomial(onFree(exact.get(), free)));
-            compare("closed form", e, want, 0.0, Map.of(), differences);
-        }
+        Map<String, Rational> want = new LinkedHashMap<>();
+        for (String p : free) want.put(p, claimed.get().getOrDefault(p, Rational.ZERO));
 
         DimensionalAnalysis da = DimensionalAnalysis.of(model.dimensionOf(s.lhs()), inputs(s.lhs()));
-        if (da.unique() && da.exponents().isPresent()) {
-            Map<String, Object> e = exactOnFree(da.exponents().get(), free);
-            if (found == null) found = e;
-            routes.add("dimensions: " + da.describe(ExprPrinter.print(s.lhs())));
-            compare("dimensional analysis", e, want, 0.0, Map.of(), differences);
+        List<RouteFinding> findings = new ArrayList<>();
+        findings.add(closedFormRoute(s.lhs(), want));
+        findings.add(dimensionalRoute(da, s.lhs(), want));
+        findings.add(numericRoute(s.lhs(), want));
+
+        List<String> routes = findings.stream().map(RouteFinding::shown).toList();
+        String side = " (" + String.join("; ", routes) + ")";
+        List<RouteFinding> deciding = findings.stream().filter(RouteFinding::decides).toList();
+        boolean anyHolds = deciding.stream().anyMatch(f -> f.decision() == RouteFinding.Decision.HOLDS);
+        boolean anyFails = deciding.stream().anyMatch(f -> f.decision() == RouteFinding.Decision.FAILS);
+        List<String> deciders = deciding.stream().map(RouteFinding::route).toList();
+        List<String> differences = new ArrayList<>();
+        for (RouteFinding f : deciding) f.differences().forEach(d -> differences.add(f.route() + ": " + d));
+
+        Status status;
+        String message;
+        if (deciding.isEmpty()) {
+            status = Status.UNDECIDED;
+            message = "no route decided" + side;
+        } else if (anyHolds && anyFails) {
+            status = Status.UNDECIDED;
+            List<String> holding = deciding.stream().filter(f -> f.decision() == RouteFinding.Decision.HOLDS).map(RouteFinding::route).toList();
+            message = "the routes contradict each other, to be investigated before trusting either: " + String.join(" and ", holding)
+                    + " find the claimed exponents, but " + String.join("; ", differences) + side;
+        } else if (anyFails) {
+            status = Status.FAILS;
+            message = String.join("; ", differences) + side;
         } else {
-            routes.add("dimensions: " + da.describe(ExprPrinter.print(s.lhs())));
+            status = Status.HOLDS;
+            message = "exponents agree in " + String.join(", ", free) + " by " + String.join(" and ", deciders) + side;
         }
-
-        Optional<Sweep.Quantity> q = numeric.apply(s.lhs());
-        if (q.isPresent() && !model.cases().isEmpty() && !free.isEmpty()) {
-            CaseValues base = model.cases().get(0);
-            try {
-                Map<String, Sweep.Fit> fits = Sweep.slopes(q.get(), base.values(), free, 7, 2.0);
-                Map<String, Object> e = new LinkedHashMap<>();
-                Map<String, Double> errors = new LinkedHashMap<>();
-                StringBuilder text = new StringBuilder("numeric sweep around case " + base.label() + ":");
-                fits.forEach((p, f) -> {
-                    e.put(p, f.slope());
-                    errors.put(p, f.standardError());
-                    text.append(String.format(Locale.ROOT, " %s %.6f±%.1e", p, f.slope(), f.standardError()));
-                });
-                if (found == null) found = e;
-                routes.add(text.toString());
-                compare("numeric sweep", e, want, SLOPE_TOLERANCE, errors, differences);
-            } catch (Exception ex) {
-                routes.add("numeric sweep: not possible (" + ex.getMessage() + ")");
-            }
-        } else if (model.cases().isEmpty() && !free.isEmpty()) {
-            routes.add("numeric sweep: no case to sweep around");
-        }
-
-        Status status = differences.isEmpty() ? (found == null ? Status.UNDECIDED : Status.HOLDS) : Status.FAILS;
-        String message = switch (status) {
-            case HOLDS -> "exponents agree in " + String.join(", ", free) + " (" + String.join("; ", routes) + ")";
-            case FAILS -> String.join("; ", differences) + " (" + String.join("; ", routes) + ")";
-            default -> "no route decided (" + String.join("; ", routes) + ")";
-        };
         Check c = Check.of("scaling", label, s.span(), status, message).with("claimed", exactOnFree(claimed.get(), free))
                 .with("routes", routes)
                 .with("dimensional_analysis", da.describe(ExprPrinter.print(s.lhs())));
-        return found == null ? c : c.with("exponents", found);
+        if (anyHolds && anyFails) c = c.with("contradiction", true);
+        Optional<Map<String, Object>> found = deciding.stream().map(RouteFinding::exponents).filter(e -> !e.isEmpty()).findFirst();
+        return found.isEmpty() ? c : c.with("exponents", found.get());
     }
 
-    private Optional<Map<String, Rational>> closedFormExponents(Expr lhs) {
+    /**
+     * A closed form that is a product of powers gives the exponents exactly; any other closed form
+     * (such as -Kb*log(1 - rho0*g*D/Kb)) is swept like a numeric answer, evaluated directly.
+     */
+    private RouteFinding closedFormRoute(Expr lhs, Map<String, Rational> want) {
+        Optional<Expr> form = closedForm(lhs);
+        if (form.isEmpty()) return RouteFinding.undecided("closed form", "none found");
+        Optional<Map<String, Rational>> exact = new Monomial(lookup).exponents(form.get());
+        if (exact.isPresent()) {
+            List<String> free = List.copyOf(want.keySet());
+            return RouteFinding.judged("closed form", DimensionalAnalysis.monomial(onFree(exact.get(), free)),
+                    exactDifferences(exact.get(), want), exactOnFree(exact.get(), free));
+        }
+        String printed = ExprPrinter.print(form.get()) + " is not a product of powers";
+        if (model.cases().isEmpty() || want.isEmpty()) {
+            return RouteFinding.undecided("closed form", printed + ", and there is no case to sweep it around");
+        }
+        RouteFinding swept = new SweepRoute(model).judge("closed form", closedFormQuantity(form.get()), doubles(want));
+        return new RouteFinding(swept.route(), swept.decision(), printed + "; swept " + swept.finding(), swept.differences(),
+                swept.exponents());
+    }
+
+    /**
+     * Dimensions decide only when they fix the exponents of every free parameter: a dimensionless
+     * group that holds one (rho0*g*D/Kb) lets the quantity be any function of it, and then the
+     * verdict is left to the routes that can see that function.
+     */
+    private RouteFinding dimensionalRoute(DimensionalAnalysis da, Expr lhs, Map<String, Rational> want) {
+        String described = da.describe(ExprPrinter.print(lhs));
+        List<String> free = List.copyOf(want.keySet());
+        if (da.fixesExponentsOf(free)) {
+            if (!da.groups().isEmpty()) described += "; no group holds a free parameter, so the exponents in them are fixed";
+            return RouteFinding.judged("dimensions", described, exactDifferences(da.exponents().get(), want),
+                    exactOnFree(da.exponents().get(), free));
+        }
+        if (da.exponents().isEmpty()) return RouteFinding.undecided("dimensions", described + "; dimensions cannot decide");
+        List<String> groups = da.groupsHolding(free).stream().map(DimensionalAnalysis::monomial).toList();
+        return RouteFinding.undecided("dimensions", described + "; " + String.join(", ", groups)
+                + (groups.size() == 1 ? " holds" : " hold") + " a free parameter, so dimensions alone do not fix the exponents:"
+                + " the verdict is left to the other routes");
+    }
+
+    private RouteFinding numericRoute(Expr lhs, Map<String, Rational> want) {
+        if (want.isEmpty()) return RouteFinding.undecided("numeric sweep", "no free parameter to sweep");
+        if (model.cases().isEmpty()) return RouteFinding.undecided("numeric sweep", "no case to sweep around");
+        Optional<Sweep.Quantity> q = numeric.apply(lhs);
+        if (q.isEmpty()) return RouteFinding.undecided("numeric sweep", "the model cannot be solved numerically");
+        return new SweepRoute(model).judge("numeric sweep", q.get(), doubles(want));
+    }
+
+    private Optional<Expr> closedForm(Expr lhs) {
         Set<String> refs = References.names(lhs);
         boolean direct = refs.stream().noneMatch(n -> model.symbol(n).orElse(null) instanceof Symbol.Profile
                 || model.symbol(n).orElse(null) instanceof Symbol.UnknownConstant);
-        Monomial monomial = new Monomial(lookup);
-        if (direct) return monomial.exponents(lhs);
-        Expr form = closedForms.get(ExprPrinter.print(lhs));
-        return form == null ? Optional.empty() : monomial.exponents(form);
+        return direct ? Optional.of(lhs) : Optional.ofNullable(closedForms.get(ExprPrinter.print(lhs)));
+    }
+
+    private static List<String> exactDifferences(Map<String, Rational> found, Map<String, Rational> want) {
+        List<String> out = new ArrayList<>();
+        want.forEach((p, w) -> {
+            Rational f = found.getOrDefault(p, Rational.ZERO);
+            if (!f.equals(w)) out.add("exponent of " + p + " is " + fmt(f.toDouble()) + ", claimed " + fmt(w.toDouble()));
+        });
+        return out;
+    }
+
+    private static Map<String, Double> doubles(Map<String, Rational> want) {
+        Map<String, Double> out = new LinkedHashMap<>();
+        want.forEach((p, r) -> out.put(p, r.toDouble()));
+        return out;
     }
 
     private static Map<String, Rational> onFree(Map<String, Rational> e, List<String> free) {
@@ -191,19 +199,7 @@ public final class ScalingChecker {
         return r.isInteger() ? (Object) r.num() : (Object) r.toDouble();
     }
 
-    private static void compare(String route, Map<String, Object> found, Map<String, Double> want, double tol,
-                                Map<String, Double> errors, List<String> differences) {
-        for (Map.Entry<String, Double> w : want.entrySet()) {
-            double f = ((Number) found.get(w.getKey())).doubleValue();
-            double allowed = Math.max(tol, 4 * errors.getOrDefault(w.getKey(), 0.0));
-            if (Math.abs(f - w.getValue()) > allowed + 1e-12) {
-                differences.add(String.format(Locale.ROOT, "%s: exponent of %s is %s, claimed %s", route, w.getKey(),
-                        fmt(f), fmt(w.getValue())));
-            }
-        }
-    }
-
-    private static String fmt(double v) {
+    static String fmt(double v) {
         return v == Math.rint(v) ? Long.toString((long) v) : String.format(Locale.ROOT, "%.6g", v);
     }
 

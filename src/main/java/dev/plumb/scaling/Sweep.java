@@ -6,56 +6,34 @@ import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
 import java.util.stream.IntStream;
-import org.apache.commons.math3.stat.regression.SimpleRegression;
 
 /**
- * Numeric scaling: log–log slopes from sweeps, local logarithmic sensitivities, and propagation
+ * Numeric scaling: quantities of the free parameters, local logarithmic sensitivities, and propagation
  * of parameter uncertainties, all on a quantity computed as a function of the free parameters.
  */
 public final class Sweep {
     private Sweep() {
     }
 
-    /** A quantity as a function of the free parameters (SI values); may solve the model each call. */
+    /**
+     * A quantity as a function of the free parameters (SI values); may solve the model each call.
+     * {@link #estimate} adds an estimate of the value's error, which a numeric solve can give by
+     * solving twice; a direct evaluation is taken to carry rounding only.
+     */
     public interface Quantity {
         double at(Map<String, Double> parameters) throws Exception;
-    }
 
-    /** A fitted log–log slope with its standard error. */
-    public record Fit(double slope, double standardError, int points, double decades) { }
-
-    /**
-     * Sweeps each parameter in turn over {@code decades} decades centred on its base value, at
-     * {@code points} log-spaced values (the others held at base), and fits ln Q against ln p.
-     */
-    public static Map<String, Fit> slopes(Quantity q, Map<String, Double> base, List<String> parameters, int points,
-                                          double decades) throws Exception {
-        Map<String, Fit> out = new LinkedHashMap<>();
-        for (String p : parameters) {
-            double[] lnP = new double[points];
-            double[] lnQ = new double[points];
-            Exception[] failure = new Exception[1];
-            IntStream.range(0, points).parallel().forEach(i -> {
-                double lg = -decades / 2 + decades * i / (points - 1);
-                Map<String, Double> at = new HashMap<>(base);
-                double value = base.get(p) * Math.pow(10, lg);
-                at.put(p, value);
-                try {
-                    lnP[i] = Math.log(value);
-                    lnQ[i] = Math.log(Math.abs(q.at(at)));
-                } catch (Exception e) {
-                    synchronized (failure) {
-                        failure[0] = e;
-                    }
-                }
-            });
-            if (failure[0] != null) throw failure[0];
-            SimpleRegression reg = new SimpleRegression(true);
-            for (int i = 0; i < points; i++) reg.addData(lnP[i], lnQ[i]);
-            out.put(p, new Fit(reg.getSlope(), reg.getSlopeStdErr(), points, decades));
+        default Estimate estimate(Map<String, Double> parameters) throws Exception {
+            double v = at(parameters);
+            return new Estimate(v, Math.abs(v) * ROUNDING);
         }
-        return out;
     }
+
+    /** The relative error assumed for a direct evaluation: rounding, with room for a few cancellations. */
+    static final double ROUNDING = 1e-13;
+
+    /** A value and an estimate of its absolute error. */
+    public record Estimate(double value, double error) { }
 
     /** ∂ln Q/∂ln p for each parameter, by central differences in ln p (step {@code h}). */
     public static Map<String, Double> sensitivities(Quantity q, Map<String, Double> base, List<String> parameters, double h)

@@ -1,6 +1,7 @@
 package dev.plumb.scaling;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -37,6 +38,10 @@ class ScalingRoutesTest {
         assertTrue(routes.get(0).startsWith("closed form: G*M^2*R^(-4)"), routes.toString());
         assertTrue(routes.get(1).contains("fixed by dimensions alone"), routes.toString());
         assertTrue(routes.get(2).startsWith("numeric sweep"), routes.toString());
+        // Each route decides on its own, and the sweep is straight in both parameters.
+        assertTrue(c.message().contains("by closed form and dimensions and numeric sweep"), c.message());
+        assertTrue(routes.get(2).contains("M from") && routes.get(2).contains("R from"), routes.toString());
+        assertFalse(routes.get(2).contains("not straight"), routes.toString());
     }
 
     @Test

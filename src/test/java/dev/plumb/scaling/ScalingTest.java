@@ -109,11 +109,24 @@ class ScalingTest {
     }
 
     @Test
-    void sweepRecoversPowerLawSlopes() throws Exception {
+    void sweepRecoversPowerLawSlopesAndSeesTheLineStraight() throws Exception {
         Sweep.Quantity q = p -> 3.0 * Math.pow(p.get("a"), 1.5) / p.get("b");
-        Map<String, Sweep.Fit> fits = Sweep.slopes(q, Map.of("a", 2.0, "b", 5.0), List.of("a", "b"), 7, 2.0);
-        assertEquals(1.5, fits.get("a").slope(), 1e-12);
-        assertEquals(-1.0, fits.get("b").slope(), 1e-12);
+        Map<String, Double> base = Map.of("a", 2.0, "b", 5.0);
+        LogLogSweep a = LogLogSweep.of(q, base, "a", 0.2, 20.0, 9);
+        LogLogSweep b = LogLogSweep.of(q, base, "b", 0.5, 50.0, 9);
+        assertEquals(1.5, a.slope(), 1e-12);
+        assertEquals(-1.0, b.slope(), 1e-12);
+        assertTrue(a.straight() && b.straight());
+    }
+
+    @Test
+    void aCurvedLogLogLineIsNotStraight() throws Exception {
+        // Q = p + p^2 bends from slope 1 to slope 2: d ln Q / d ln p = (1 + 2p)/(1 + p).
+        Sweep.Quantity q = p -> p.get("p") + p.get("p") * p.get("p");
+        LogLogSweep s = LogLogSweep.of(q, Map.of("p", 1.0), "p", 0.1, 10.0, 9);
+        assertFalse(s.straight());
+        assertEquals((1 + 2 * 0.1) / (1 + 0.1), LogLogSweep.localExponent(q, Map.of("p", 1.0), "p", 0.1), 1e-6);
+        assertEquals((1 + 2 * 10.0) / (1 + 10.0), LogLogSweep.localExponent(q, Map.of("p", 1.0), "p", 10.0), 1e-6);
     }
 
     @Test
