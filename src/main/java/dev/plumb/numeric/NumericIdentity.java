@@ -17,7 +17,7 @@ import java.util.SplittableRandom;
 
 /**
  * Decides a claim or step that no closed form decides by the numbers: the relations are solved at
- * parameter points drawn around each case (each free parameter scaled by up to a factor 1.5 either
+ * parameter points drawn around each case (each free parameter scaled by up to a factor 1.25 either
  * way, keeping its sign), and at each both sides are evaluated (a claim about a whole profile at
  * several points of the interval). It holds when every point agrees within a tolerance tied to the
  * solver's own error estimate; it fails with a factor when the ratio of the two sides is the same
@@ -47,33 +47,38 @@ public final class NumericIdentity {
         boolean alongProfile = x != null && (mentions(model, eq.lhs(), x) || mentions(model, eq.rhs(), x));
         List<double[]> pairs = new ArrayList<>();
         double worst = 0;
+        int solved = 0;
         for (Map<String, Double> values : points) {
             Solution s, tight;
             try {
                 s = NumericEngine.solve(model, values, NumericOptions.defaults(), closedForms);
                 tight = NumericEngine.resolve(s, NumericOptions.defaults().tighter());
             } catch (SolveException notSolved) {
-                return null;
+                // A point outside the bodies the relations allow (a star inside its own horizon) says nothing.
+                continue;
             }
             List<Map<String, Double>> at = alongProfile ? along(model, s, values) : List.of(Map.of());
-            if (at == null) return null;
+            if (at == null) continue;
+            solved++;
             for (Map<String, Double> where : at) {
                 try {
                     Expr l = bind(eq.lhs(), where), r = bind(eq.rhs(), where);
                     double lv = s.evaluate(l), rv = s.evaluate(r);
                     double err = Math.abs(tight.evaluate(l) - lv) + Math.abs(tight.evaluate(r) - rv);
-                    if (!Double.isFinite(lv) || !Double.isFinite(rv)) return null;
+                    if (!Double.isFinite(lv) || !Double.isFinite(rv)) continue;
                     double size = Math.max(Math.abs(lv), Math.abs(rv));
                     double allowed = Math.max(SAFETY * err, FLOOR * size);
                     double diff = Math.abs(lv - rv);
                     if (size > 0) worst = Math.max(worst, diff / size);
                     pairs.add(new double[]{lv, rv, allowed});
                 } catch (SolveException cannot) {
-                    return null;
+                    // A side that cannot be evaluated at this point (outside its domain) is left out.
                 }
             }
         }
-        String route = "numeric identity over " + pairs.size() + " points (" + points.size() + " parameter sets around "
+        // Decide only on most of the points: a verdict from a few survivors of a domain the cases barely sit in is no proof.
+        if (solved < Math.max(2, (points.size() + 1) / 2) || pairs.isEmpty()) return null;
+        String route = "numeric identity over " + pairs.size() + " points (" + solved + " parameter sets around "
                 + (model.cases().isEmpty() ? "the file's values" : "the cases") + (alongProfile ? ", " + ALONG + " places along the interval each" : "") + ")";
         Check base;
         if (pairs.stream().allMatch(p -> Math.abs(p[0] - p[1]) <= p[2])) {
@@ -90,11 +95,12 @@ public final class NumericIdentity {
         double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
         boolean ratios = true;
         for (double[] p : pairs) {
-            if (p[1] == 0) {
+            // The model puts the unknown side on the left: p[0] is the solved truth, p[1] the claimed side.
+            if (p[0] == 0) {
                 ratios = false;
                 break;
             }
-            double q = p[0] / p[1];
+            double q = p[1] / p[0];
             lo = Math.min(lo, q);
             hi = Math.max(hi, q);
         }
@@ -137,7 +143,7 @@ public final class NumericIdentity {
                 Map<String, Double> v = new LinkedHashMap<>(c.values());
                 for (Symbol.FreeParam p : model.freeParams()) {
                     Double base = v.get(p.name());
-                    if (base != null) v.put(p.name(), base * Math.exp((random.nextDouble() * 2 - 1) * Math.log(1.5)));
+                    if (base != null) v.put(p.name(), base * Math.exp((random.nextDouble() * 2 - 1) * Math.log(1.25)));
                 }
                 out.add(v);
             }
