@@ -18,6 +18,24 @@ final class ExactNumber {
     private ExactNumber() {
     }
 
+    /**
+     * Whether the number is a small rational (numerator and denominator at most 1000) times a
+     * small power of pi: the shape of a structural factor, as opposed to a typed measured value
+     * such as 6.674e-11.
+     */
+    static boolean isSmall(BigDecimal v, Symja symja) {
+        if (v.signum() == 0) return true;
+        BigDecimal pi = Sampler.decimal(symja.eval(F.N(F.Pi, F.ZZ(Sampler.DIGITS + 10))));
+        for (int k : PI_POWERS) {
+            BigDecimal scaled = k >= 0 ? v.divide(pi.pow(k), Sampler.MC) : v.multiply(pi.pow(-k), Sampler.MC);
+            Optional<Rational> q = Rational.approximate(scaled.doubleValue(), 1000);
+            if (q.isEmpty() || Math.abs(q.get().num()) > 1000) continue;
+            BigDecimal exact = new BigDecimal(q.get().num()).divide(new BigDecimal(q.get().den()), Sampler.MC);
+            if (Comparison.same(exact, scaled, TOLERANCE)) return true;
+        }
+        return false;
+    }
+
     static Optional<IExpr> identify(BigDecimal v, Symja symja) {
         return identify(v, symja, TOLERANCE);
     }

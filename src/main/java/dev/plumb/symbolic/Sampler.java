@@ -55,10 +55,11 @@ final class Sampler {
                 continue;
             }
             var fixed = table.fixedValue(entry.getKey());
+            var constant = table.constantValue(entry.getKey());
             if (s instanceof Symbol.FixedParam && fixed.isPresent()) {
                 values.put(sym, Translation.rational(fixed.get()));
-            } else if (s instanceof Symbol.Builtin && fixed.isPresent()) {
-                values.put(sym, Translation.rational(fixed.get().multiply(uniform(0.5, 2)).round(MC)));
+            } else if (constant.isPresent()) {
+                values.put(sym, Translation.rational(constant.get().multiply(uniform(0.5, 2)).round(MC)));
             } else if (around != null && around.values().containsKey(entry.getKey())) {
                 values.put(sym, Translation.rational(new BigDecimal(around.values().get(entry.getKey())).multiply(uniform(0.5, 2)).round(MC)));
             } else {
@@ -71,6 +72,18 @@ final class Sampler {
             BigDecimal to = bound(t, coordinate.to(), values, from.add(BigDecimal.ONE));
             BigDecimal u = uniform(0.05, 0.95);
             values.put((ISymbol) x, Translation.rational(from.add(to.subtract(from).multiply(u)).round(MC)));
+        }
+        return values;
+    }
+
+    /**
+     * The point with every built-in constant at its own value instead of a random multiple (the
+     * other quantities as they were): where a claim is compared with the constants' values.
+     */
+    Map<ISymbol, IExpr> atConstantValues(Map<ISymbol, IExpr> point) {
+        Map<ISymbol, IExpr> values = new LinkedHashMap<>(point);
+        for (var entry : table.all().entrySet()) {
+            table.constantValue(entry.getKey()).ifPresent(v -> values.put(entry.getValue(), Translation.rational(v)));
         }
         return values;
     }
