@@ -118,7 +118,7 @@ final class Comparison {
         if (constant) {
             if (first.signum() == 0) return new Verdict(Status.FAILS, "it is 0 but should not be", null, Optional.empty());
             Optional<String> exact = ExactNumber.identify(first, symja).flatMap(this::print);
-            if (exact.isEmpty() && ConstantValues.nearOne(first)) return values.nearOne(claimed, truth, first, samples.size());
+            if (exact.isEmpty() && ConstantValues.nearOne(first)) return values.nearOne(claimed, truth, first, samples.size(), false);
             String f = exact.orElse(first.round(new MathContext(8)).toString());
             String msg = f.equals("-1") ? "the sign is wrong: claimed/true = -1"
                     : "off by a constant factor: claimed/true = " + f + (exact.isEmpty() ? " (not identified exactly)" : "");

@@ -52,9 +52,10 @@ final class ConstantValues {
 
     /**
      * A verdict when claimed/true varies only with built-in constants ({@code dependence} at one
-     * point, over the sides already written in the basis); empty when something else varies too,
-     * or when the ratio is a structural power of constants ({@code G} times a small exact number,
-     * a dropped or doubled constant), which the caller describes as a dependence.
+     * point, over the sides already written in the basis); empty when something else varies too.
+     * A ratio that is a power of constants times a small exact number (a dropped G, m_u for m_p)
+     * is described as that dependence, with its value; any other number in front of the constants
+     * was typed for them, and the verdict names the constant.
      *
      * @param mentioned the names the two sides use as written, which name a constant first
      * @param tested    how many random points the identity test used
@@ -66,11 +67,16 @@ final class ConstantValues {
         if (varying.isEmpty() || !varying.stream().allMatch(table::isBuiltin)) return Optional.empty();
         BigDecimal ratio = ratioAtValues(claimed, truth, points);
         if (ratio == null) return Optional.empty();
-        if (nearOne(ratio)) return Optional.of(nearOne(claimed, truth, ratio, tested));
+        if (nearOne(ratio)) return Optional.of(nearOne(claimed, truth, ratio, tested, true));
         boolean monomial = dependence.other().isEmpty();
         if (monomial) {
             BigDecimal number = numberTimes(claimed, truth, points.get(0));
-            if (number == null || ExactNumber.isSmall(number, symja)) return Optional.empty();
+            if (number == null) return Optional.empty();
+            if (ExactNumber.isSmall(number, symja)) {
+                // m_u where the derivation has m_p: a different constant, not a different value of one.
+                return Optional.of(new Comparison.Verdict(Status.FAILS, Comparison.describe(dependence)
+                        + "; with the built-in constants at their values claimed/true = " + factor(ratio), null, Optional.empty()));
+            }
         }
         String factor = factor(ratio);
         String why = monomial ? valueUsed(dependence.powers(), ratio, mentioned)
@@ -84,22 +90,23 @@ final class ConstantValues {
      * {@value #HOLDS_WITHIN_TEXT} of 1: it holds when the computer algebra confirms that, with the
      * constants' values put in, the difference is 0 or the ratio is a number.
      */
-    Comparison.Verdict nearOne(IExpr claimed, IExpr truth, BigDecimal ratio, int tested) {
-        String values = valuesPutIn(claimed, truth);
+    Comparison.Verdict nearOne(IExpr claimed, IExpr truth, BigDecimal ratio, int tested, boolean throughConstants) {
+        String values = throughConstants ? valuesPutIn(claimed, truth) : "";
         String numeric = "numeric identity test at " + tested + " random points (" + Sampler.DIGITS + " digits)";
         try {
             IExpr c = atValues(claimed);
             IExpr t = atValues(truth);
-            if (symja.eval(F.Simplify(F.Subtract(c, t), assumptions)).isZero()) {
+            if (!values.isEmpty() && symja.eval(F.Simplify(F.Subtract(c, t), assumptions)).isZero()) {
                 return new Comparison.Verdict(Status.HOLDS, "with " + values + " put in, the difference simplifies to 0; "
                         + numeric + " agrees", null, Optional.empty());
             }
             IExpr q = symja.eval(F.Simplify(F.Together(F.Divide(c, t)), assumptions));
             if (q.isFree(x -> x.isSymbol() && table.name((ISymbol) x) != null, true)) {
                 BigDecimal off = ratio.subtract(BigDecimal.ONE).round(new MathContext(2));
-                return new Comparison.Verdict(Status.HOLDS, "to " + HOLDS_WITHIN_TEXT + ": " + (values.isEmpty() ? "" : "with " + values
-                        + " put in, ") + "claimed/true simplifies to a number, 1 " + (off.signum() < 0 ? "- " : "+ ") + scientific(off.abs())
-                        + ", which counts as 1 (a value typed with 12 or more correct digits); " + numeric + " agrees", null, Optional.empty());
+                return new Comparison.Verdict(Status.HOLDS, "claimed/true is 1 " + (off.signum() < 0 ? "- " : "+ ") + scientific(off.abs())
+                        + (values.isEmpty() ? "" : " with " + values + " put in") + " (it simplifies to this number), within the "
+                        + HOLDS_WITHIN_TEXT + " that counts as equal (a value typed with 12 or more correct digits); " + numeric + " agrees",
+                        null, Optional.empty());
             }
         } catch (Symja.Failure f) {
             return new Comparison.Verdict(Status.UNDECIDED, "claimed/true is 1 to " + HOLDS_WITHIN_TEXT + " at " + tested
@@ -170,10 +177,10 @@ final class ConstantValues {
                     : value.multiply(new BigDecimal(Math.pow(ratio.doubleValue(), 1 / n.get().toDouble())), Sampler.MC);
             String unit = Constants.lookup(q).map(c -> c.unit().dimension().toString()).orElse("1");
             return "the value used for " + q + " (" + scientific(used.round(new MathContext(10))) + (unit.equals("1") ? "" : " " + unit)
-                    + ") differs from " + reference(q) + " (claimed/true is " + Comparison.monomial(powers) + " times a number)";
+                    + ") differs from " + reference(q);
         }
-        return "with the built-in constants at their values; claimed/true is " + Comparison.monomial(powers)
-                + " times a number, so a value was used in place of this product of constants";
+        return "with the built-in constants at their values (claimed/true is " + Comparison.monomial(powers)
+                + " times a number: a number stands where the other side has these constants)";
     }
 
     /** The powers of basis constants a built-in constant stands for: {N_A: 1, k_B: 1} for R_gas when it was rewritten, else itself. */
@@ -203,10 +210,17 @@ final class ConstantValues {
         return "CODATA 2018's " + published;
     }
 
-    /** The ratio with enough digits to differ from 1: 0.99996, 0.99999999998. */
+    /**
+     * The ratio to five significant digits, or, close to 1, to the second significant digit of
+     * its difference from 1 (0.999955, 0.99999999965): how far off a typed value is, is the news.
+     */
     static String factor(BigDecimal ratio) {
         BigDecimal shown = ratio.round(new MathContext(5));
-        for (int digits = 6; digits <= 30 && shown.compareTo(BigDecimal.ONE) == 0; digits++) shown = ratio.round(new MathContext(digits));
+        BigDecimal off = ratio.subtract(BigDecimal.ONE).abs();
+        if (off.signum() != 0 && off.compareTo(new BigDecimal("1e-3")) < 0) {
+            int firstDigit = off.precision() - off.scale() - 1;
+            shown = ratio.setScale(1 - firstDigit, java.math.RoundingMode.HALF_EVEN);
+        }
         return scientific(shown);
     }
 

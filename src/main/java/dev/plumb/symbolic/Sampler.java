@@ -22,8 +22,9 @@ import org.matheclipse.core.interfaces.ISymbol;
  * Random points of the parameter domain and high-precision evaluation there. Parameters are
  * drawn as exact rationals (around a case value when the file has cases, so scales are
  * physical), built-in constants are scaled by a random factor (an identity must not hold only
- * for G's value), fixed parameters keep their value, and the coordinate falls inside its
- * interval. Evaluation runs at {@value #DIGITS} digits, so cancellation cannot fake a zero.
+ * for G's value; the comparison has already written R_gas, hbar and sigma_SB in the basis of the
+ * 2019 SI, so the constants left are independent), fixed parameters keep their value, and the
+ * coordinate falls inside its interval. Evaluation runs at {@value #DIGITS} digits, so cancellation cannot fake a zero.
  */
 final class Sampler {
 

@@ -29,31 +29,13 @@ class ConstantRelationsTest {
             claim printed_R: R_gas*T = 8.314462618 [J/(mol K)]*T
             """;
 
-    /** A uniform sphere whose claims put numbers where the balance has G. */
-    private static final String SPHERE = """
-            title "Uniform sphere, G typed as a number"
-            param M [kg] > 0
-            param R [m] > 0
-            coord r [m] from 0 to R
-            let rho = M/(4/3*pi*R^3)
-            let m(r) = 4/3*pi*r^3*rho
-            unknown P(r) [Pa]
-            relation balance: P'(r) = -G*m(r)*rho/r^2
-            boundary surface: P(R) = 0
-            claim cgs_G: P(0) = 3/(8*pi)*6.674e-8 [cm^3/(g s^2)]*M^2/R^4
-            claim codata_G: P(0) = 3/(8*pi)*6.67430e-11 [m^3/(kg s^2)]*M^2/R^4
-            claim doubled: P(0) = 3/(4*pi)*G*M^2/R^4
-            claim mass_ratio: P(0) = 3/(8*pi)*G*M^2/R^4*m_e/m_p
-            case sun: M = 1 [Msun], R = 1 [Rsun]
-            """;
-
     static SymbolicResult relations;
     static SymbolicResult sphere;
 
     @BeforeAll
     static void analyze() {
         relations = Fixtures.analyze(Fixtures.model("relations.plumb", RELATIONS));
-        sphere = Fixtures.analyze(Fixtures.model("sphere.plumb", SPHERE));
+        sphere = Fixtures.analyze(Fixtures.file("examples/vessa-typed-constants.plumb"));
     }
 
     @Test
@@ -92,8 +74,8 @@ class ConstantRelationsTest {
         double ratio = new BigDecimal("8.314462618").divide(exact, MathContext.DECIMAL64).doubleValue();
         Check c = Fixtures.check(relations, "printed_R");
         assertEquals(Status.FAILS, c.status(), c.message());
-        // The factor is shown to the digits that tell it from 1 (here 11): half a unit in that place.
-        assertEquals(ratio, Double.parseDouble(c.factor()), 5e-12, c.message());
+        // The factor is shown to the second significant digit of its difference from 1: half a unit in that place.
+        assertEquals(ratio, Double.parseDouble(c.factor()), 5e-13, c.message());
         assertTrue(c.message().contains("the value used for R_gas"), c.message());
     }
 
@@ -103,8 +85,8 @@ class ConstantRelationsTest {
         double ratio = 6.674e-11 / 6.67430e-11;
         Check c = Fixtures.check(sphere, "cgs_G");
         assertEquals(Status.FAILS, c.status(), c.message());
-        // Shown to five significant digits, 0.99996: half a unit in the last place.
-        assertEquals(ratio, Double.parseDouble(c.factor()), 5e-6, c.message());
+        // Shown as 0.999955 (to the second significant digit of its difference from 1): half a unit in the last place.
+        assertEquals(ratio, Double.parseDouble(c.factor()), 5e-7, c.message());
         assertTrue(c.message().contains("the value used for G (6.674e-11 m^3 kg^-1 s^-2)"), c.message());
         assertTrue(c.message().contains("6.67430e-11"), c.message());
     }
@@ -125,9 +107,30 @@ class ConstantRelationsTest {
 
     @Test
     void aTrulyDifferentPowerOfAConstantIsADependence() {
-        Check c = Fixtures.check(sphere, "mass_ratio");
+        Check c = Fixtures.check(sphere, "stray_mass_ratio");
         assertEquals(Status.FAILS, c.status(), c.message());
         assertNull(c.factor(), c.message());
         assertTrue(c.message().contains("proportional to m_e*m_p^(-1)"), c.message());
+        // CODATA 2018: m_p/m_e = 1836.15267343, so the ratio at the constants' values is its inverse.
+        String value = c.message().replaceAll(".*claimed/true = ([0-9.e-]+).*", "$1");
+        // Shown to five significant digits (0.00054462): half a unit in the last place.
+        assertEquals(1 / 1836.15267343, Double.parseDouble(value), 5e-9, c.message());
+    }
+
+    @Test
+    void theGasConstantPerMoleIsTheBoltzmannConstantPerMolecule() {
+        // SI Brochure (9th ed.): R = N_A k exactly.
+        Check c = Fixtures.check(sphere, "per_mole");
+        assertEquals(Status.HOLDS, c.status(), c.message());
+    }
+
+    @Test
+    void oneGramPerMoleIsNotExactlyTheMolarMassConstant() {
+        // CODATA 2018: M_u = N_A m_u = 0.999 999 999 65(30)e-3 kg/mol, no longer exactly 1 g/mol since the 2019 SI.
+        Check c = Fixtures.check(sphere, "one_gram_per_mole");
+        assertEquals(Status.FAILS, c.status(), c.message());
+        assertEquals(0.99999999965, Double.parseDouble(c.factor()), 5e-12, c.message());
+        assertTrue(c.message().contains("(claimed/true is m_u*N_A times a number"), c.message());
+        assertTrue(c.message().contains("N_A") && c.message().contains("m_u"), c.message());
     }
 }
