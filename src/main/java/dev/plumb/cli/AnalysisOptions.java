@@ -8,7 +8,8 @@ import picocli.CommandLine.Option;
 final class AnalysisOptions {
 
     @Option(names = "--symbolic-timeout", paramLabel = "SECONDS", defaultValue = "5",
-            description = "time limit for each symbolic computation (default: ${DEFAULT-VALUE} s)")
+            description = "CPU-time limit for each symbolic computation, so a busy machine gives the same verdicts "
+                    + "(default: ${DEFAULT-VALUE} s; twelve times as long by the clock stops it anyway)")
     double symbolicTimeout;
 
     @Option(names = "--strict", description = "an undecided check fails the run")

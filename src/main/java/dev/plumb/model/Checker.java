@@ -219,14 +219,14 @@ public final class Checker {
                 DimForm value = inference.infer(p.value());
                 if (p.unit() != null) {
                     inference.mismatch(value, inference.unit(p.unit().text(), p.unit().span()), p.value().span(),
-                            "the value of '" + p.name() + "' does not have its declared unit [" + p.unit().text() + "]", p.value(), null);
+                            "the value of '" + p.name() + "' does not have its declared unit [" + p.unit().text() + "]", p.value(), null, true);
                 }
             } else if (s instanceof Stmt.Coord c) {
                 DimForm cf = inference.symbolForm(c.name());
                 inference.mismatch(inference.infer(c.from()), cf, c.from().span(),
-                        "the start of the interval does not have the unit of '" + c.name() + "'", c.from(), null);
+                        "the start of the interval does not have the unit of '" + c.name() + "'", c.from(), null, true);
                 inference.mismatch(inference.infer(c.to()), cf, c.to().span(),
-                        "the end of the interval does not have the unit of '" + c.name() + "'", c.to(), null);
+                        "the end of the interval does not have the unit of '" + c.name() + "'", c.to(), null, true);
             } else if (s instanceof Stmt.Unknown u && u.isProfile()) {
                 if (coord == null) {
                     diagnostics.error(u.span(), "the profile '" + u.name() + "' needs a coordinate: declare one, e.g. coord "
@@ -263,7 +263,7 @@ public final class Checker {
             DimForm f = inference.infer(sh.expr());
             if (sh.unit() != null) {
                 inference.mismatch(f, inference.unit(sh.unit().text(), sh.unit().span()), sh.unit().span(),
-                        "cannot show " + ExprPrinter.print(sh.expr()) + " in [" + sh.unit().text() + "]: the units differ", sh.expr(), null);
+                        "cannot show " + ExprPrinter.print(sh.expr()) + " in [" + sh.unit().text() + "]: the units differ", sh.expr(), null, true);
             }
         }
     }
@@ -366,11 +366,11 @@ public final class Checker {
                 }
                 DimForm want = inference.symbolForm(a.name());
                 ok &= !inference.mismatch(inference.infer(a.value()), want, a.value().span(),
-                        "the value of '" + a.name() + "' does not have its unit", a.value(), null);
+                        "the value of '" + a.name() + "' does not have its unit", a.value(), null, true);
                 ok &= value(evaluator, a.value(), a.name(), values);
                 if (a.uncertainty() != null) {
                     ok &= !inference.mismatch(inference.infer(a.uncertainty()), want, a.uncertainty().span(),
-                            "the uncertainty of '" + a.name() + "' does not have its unit", a.uncertainty(), null);
+                            "the uncertainty of '" + a.name() + "' does not have its unit", a.uncertainty(), null, true);
                     ok &= value(evaluator, a.uncertainty(), a.name(), sigmas);
                 }
             }

@@ -276,6 +276,16 @@ final class UnitInference {
 
     /** Reports a mismatch of two forms at {@code span}; returns true when they differ. */
     boolean mismatch(DimForm a, DimForm b, Span span, String message, Expr left, Expr right) {
+        return mismatch(a, b, span, message, left, right, false);
+    }
+
+    /**
+     * Unifies the two unit forms; when they differ, reports it at {@code span} and returns true. With
+     * {@code request} set the difference is an error in what the file asks for (a value shown in a unit
+     * of another kind, a declaration or a case value of the wrong unit): the run cannot honour it.
+     * Otherwise it is a failing unit check of a relation, a step or a claim.
+     */
+    boolean mismatch(DimForm a, DimForm b, Span span, String message, Expr left, Expr right, boolean request) {
         Optional<DimForm> ratio = solver.unify(a, b);
         if (ratio.isEmpty()) return false;
         List<String> details = new ArrayList<>();
@@ -283,7 +293,11 @@ final class UnitInference {
         details.add(String.format("%-6s %-22s %s", right == null ? "needs" : "right", right == null ? "" : abbreviate(right),
                 solver.describe(b)));
         details.add(hint(ratio.get()));
-        diagnostics.failure(span, message, details.toArray(String[]::new));
+        if (request) {
+            diagnostics.error(span, message, details.toArray(String[]::new));
+        } else {
+            diagnostics.failure(span, message, details.toArray(String[]::new));
+        }
         return true;
     }
 

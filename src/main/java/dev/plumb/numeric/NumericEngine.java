@@ -121,6 +121,9 @@ public final class NumericEngine {
             } catch (SolveException ex) {
                 String failure = where(model, ex.span()) + ex.getMessage();
                 cases.add(new CaseResult(c.label(), null, List.of(), failure));
+                // An unsolved case is a failing check, so the summary's counts agree with the exit status.
+                checks.add(Check.of("case", c.label(), ex.span(), Status.FAILS, (implicit(model) ? "the relations" : "case '"
+                        + c.label() + "'") + " could not be solved numerically: " + ex.getMessage()));
                 for (Stmt.Expect e : expects) {
                     checks.add(Check.of("expect", label(e), e.span(), Status.FAILS, (implicit(model) ? "the relations"
                             : "case '" + c.label() + "'") + " could not be solved numerically: " + ex.getMessage()));

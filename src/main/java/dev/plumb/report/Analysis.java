@@ -74,9 +74,17 @@ public record Analysis(SourceFile source, Model model, List<Diagnostic> diagnost
         return checks.stream().filter(c -> c.status() == s).count();
     }
 
-    /** Whether every check holds (undecided ones count against only when {@code strict}). */
+    /** Errors reported as diagnostics (a unit error inside an expression that no check counts, for one). */
+    public long errorCount() {
+        return diagnostics.stream().filter(d -> d.severity() == dev.plumb.lang.Severity.ERROR).count();
+    }
+
+    /**
+     * Whether every check holds (undecided ones count against only when {@code strict}): no failing
+     * check, no unsolved case (each is a failing check of kind "case") and no error printed.
+     */
     public boolean ok(boolean strict) {
-        return !hasInputErrors() && count(Status.FAILS) == 0 && (!strict || count(Status.UNDECIDED) == 0)
+        return errorCount() == 0 && count(Status.FAILS) == 0 && (!strict || count(Status.UNDECIDED) == 0)
                 && cases.stream().allMatch(c -> c.failure() == null);
     }
 

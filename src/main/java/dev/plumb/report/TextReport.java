@@ -79,8 +79,9 @@ public final class TextReport {
         long fails = a.count(Status.FAILS);
         long undecided = a.count(Status.UNDECIDED);
         long pending = a.count(Status.NOT_EVALUATED);
-        String s = String.format(Locale.ROOT, "  %d hold, %d fail, %d undecided%s", holds, fails, undecided,
-                pending > 0 ? ", " + pending + " not evaluated yet" : "");
+        long errors = a.errorCount();
+        String s = String.format(Locale.ROOT, "  %d hold, %d fail, %d undecided%s%s", holds, fails, undecided,
+                pending > 0 ? ", " + pending + " not evaluated yet" : "", errors > 0 ? ", " + errors + " error" + (errors > 1 ? "s" : "") : "");
         return a.ok(strict) ? style.green(s) : style.red(s);
     }
 

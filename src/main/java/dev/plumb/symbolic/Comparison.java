@@ -72,7 +72,7 @@ final class Comparison {
         }
         List<BigDecimal[]> samples = new ArrayList<>();
         List<Map<ISymbol, IExpr>> points = new ArrayList<>();
-        for (int tries = 0; samples.size() < POINTS && tries < 4 * POINTS; tries++) {
+        for (int tries = 0; samples.size() < POINTS && tries < 4 * POINTS && sampler.gaveUp() == null; tries++) {
             Map<ISymbol, IExpr> p = sampler.point(translation);
             BigDecimal l = sampler.value(claimed, p);
             BigDecimal r = sampler.value(truth, p);
@@ -81,7 +81,8 @@ final class Comparison {
             points.add(p);
         }
         if (samples.size() < POINTS / 2) {
-            String why = "the numeric identity test found too few points where both sides are real numbers";
+            String why = sampler.gaveUp() != null ? "the numeric identity test could not evaluate the two sides: " + sampler.gaveUp()
+                    : "the numeric identity test found too few points where both sides are real numbers";
             if (Boolean.TRUE.equals(symbolicZero)) return new Verdict(Status.UNDECIDED, symbolic + ", but " + why, null, Optional.empty());
             return new Verdict(Status.UNDECIDED, why + "; " + symbolic, null, Optional.empty());
         }

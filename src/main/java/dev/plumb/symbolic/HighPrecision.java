@@ -27,6 +27,8 @@ import org.matheclipse.core.interfaces.ISymbol;
 final class HighPrecision {
 
     static final int PRECISION = 90;
+    /** Past this many bits an exact rational becomes a decimal: the work then stays bounded by the precision. */
+    private static final int EXACT_BITS = 4096;
     private static final MathContext MC = new MathContext(PRECISION + 10, RoundingMode.HALF_EVEN);
     private static final BigDecimal CANCELLATION = new BigDecimal("1e-50");
     private static final BigDecimal PI = new BigDecimal(ApfloatMath.pi(PRECISION + 20).toString(true));
@@ -54,6 +56,7 @@ final class HighPrecision {
                 n = n.negate();
                 d = d.negate();
             }
+            if (d.signum() != 0 && n.bitLength() + d.bitLength() > EXACT_BITS) return of(new BigDecimal(n).divide(new BigDecimal(d), MC));
             BigInteger g = n.gcd(d);
             return g.signum() == 0 || g.equals(BigInteger.ONE) ? new Value(n, d, null) : new Value(n.divide(g), d.divide(g), null);
         }
@@ -140,12 +143,14 @@ final class HighPrecision {
             if (x.num.bitLength() > 16) throw new Declined();
             int k = x.num.intValue();
             if (b.signum() == 0 && k < 0) throw new NotReal();
-            if (b.isExact()) {
+            // An exact power stays exact only while it stays small: (4709/10000)^65535 would have a million bits.
+            if (b.isExact() && (long) (b.num.bitLength() + b.den.bitLength()) * Math.abs(k) <= EXACT_BITS) {
                 BigInteger n = b.num.pow(Math.abs(k));
                 BigInteger d = b.den.pow(Math.abs(k));
                 return k >= 0 ? Value.exact(n, d) : Value.exact(d, n);
             }
-            return Value.of(k >= 0 ? b.decimal.pow(k, MC) : BigDecimal.ONE.divide(b.decimal.pow(-k, MC), MC));
+            BigDecimal d = b.big();
+            return Value.of(k >= 0 ? d.pow(k, MC) : BigDecimal.ONE.divide(d.pow(-k, MC), MC));
         }
         if (b.signum() < 0) throw new NotReal();
         if (b.signum() == 0) {

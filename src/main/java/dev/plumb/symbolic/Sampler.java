@@ -117,15 +117,26 @@ final class Sampler {
 
     /** The value by Symja's own evaluation: exact first, then numeric. */
     BigDecimal symjaValue(IExpr e, Map<ISymbol, IExpr> values) {
+        if (gaveUp != null) return null;
         List<IExpr> rules = new ArrayList<>();
         values.forEach((k, v) -> rules.add(F.Rule(k, v)));
         IExpr n;
         try {
             n = symja.eval(F.N(F.ReplaceAll(e, F.ListAlloc(rules)), F.ZZ(DIGITS)));
         } catch (Symja.Failure f) {
+            // One value given up on (out of time, a number past the size limit) means the others would be too:
+            // stop asking, and let the caller say why.
+            gaveUp = f.getMessage();
             return null;
         }
         return decimal(n);
+    }
+
+    private String gaveUp;
+
+    /** Why the computer algebra system gave up on a value (out of time, too large a number), or null. */
+    String gaveUp() {
+        return gaveUp;
     }
 
     static BigDecimal decimal(IExpr n) {

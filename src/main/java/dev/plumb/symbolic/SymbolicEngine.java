@@ -35,6 +35,14 @@ public final class SymbolicEngine {
     public static SymbolicResult analyze(Model model, SymbolicOptions options) {
         Symja.awaitWarm(30);
         Symja symja = new Symja(options.timeoutSeconds());
+        try {
+            return analyze(model, symja);
+        } finally {
+            symja.close();
+        }
+    }
+
+    private static SymbolicResult analyze(Model model, Symja symja) {
         SymbolTable table = new SymbolTable(model);
         Translation plain = new Translation(table, symja, Map.of(), Map.of());
         IExpr assumptions = table.assumptions(plain);

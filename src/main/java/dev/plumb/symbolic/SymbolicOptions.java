@@ -3,7 +3,8 @@ package dev.plumb.symbolic;
 /**
  * How the symbolic engine may spend its time.
  *
- * @param timeoutSeconds wall-clock limit for each single computer-algebra call, in seconds
+ * @param timeoutSeconds CPU-time limit for each single computer-algebra call, in seconds (a wall-clock limit
+ *                       twelve times as long stays as a safety stop)
  */
 public record SymbolicOptions(double timeoutSeconds) {
 

@@ -35,7 +35,6 @@ final class Symja {
 
     private final ExprEvaluator evaluator;
     private final double timeoutSeconds;
-    private final ISymbol timedOut = F.Dummy("plumbtimedout");
 
     Symja(double timeoutSeconds) {
         this.timeoutSeconds = timeoutSeconds;
@@ -55,6 +54,12 @@ final class Symja {
         Config.SWING_PLOT_FRAME = false;
         Config.USE_MANIPULATE_JS = false;
         Config.FUZZY_PARSER = false;
+        // Bounds that do not depend on the machine's load: a number past 20,000 bits (6,000 digits), a
+        // polynomial past degree 10,000 or an expression past a million nodes is given up at once, the same
+        // way on a quiet machine and a busy one ((1+x)^1000000 or x^1e6 at a rational point).
+        Config.MAX_BIT_LENGTH = 20_000;
+        Config.MAX_POLYNOMIAL_DEGREE = 10_000;
+        Config.MAX_AST_SIZE = 1_000_000;
     }
 
     /** Loads Symja's rule tables on a background thread; later sessions start warm. */
@@ -98,23 +103,118 @@ final class Symja {
         return eval(e, timeoutSeconds);
     }
 
+    /**
+     * Evaluates {@code e} on this session's own worker thread, within {@code seconds} of that thread's
+     * CPU time. CPU time, not wall-clock time, so that a busy machine (both cores taken by another
+     * build) slows an evaluation down without making it run out: the same file gets the same verdicts.
+     * A wall-clock limit of {@link #HARD_STOP_FACTOR} times as long stays as a safety stop. Either
+     * limit asks the engine to stop and interrupts the worker; a worker that does not stop (deep in
+     * arithmetic that never checks) is abandoned and the session starts a fresh one.
+     */
     IExpr eval(IExpr e, double seconds) {
-        IExpr result;
-        try {
-            long whole = Math.max(1, Math.round(seconds));
-            result = evaluator.eval(F.TimeConstrained(e, F.ZZ(whole), timedOut));
-        } catch (RuntimeException | Error ex) {
-            // Not only StackOverflowError: Symja's own assertions (under -ea) and Guava's time limiter
-            // (ExecutionError) throw Errors from inside an evaluation, and the numeric side can still answer.
-            throw new Failure("the computer algebra system gave up (" + ex.getClass().getSimpleName() + ")", false);
+        EvalEngine engine = evaluator.getEvalEngine();
+        engine.setStopRequested(false);
+        Worker w = worker();
+        java.util.concurrent.Future<IExpr> job = w.pool.submit(() -> evaluator.eval(e));
+        long budget = Math.round(seconds * 1e9), cpuStart = w.cpu(), wallStart = System.nanoTime();
+        boolean stopped = false;
+        while (true) {
+            try {
+                IExpr result = job.get(10, java.util.concurrent.TimeUnit.MILLISECONDS);
+                if (stopped || result == S.$Aborted) throw new Failure(stopped ? timedOutMessage(seconds)
+                        : "the computer algebra system aborted the computation", stopped);
+                return result;
+            } catch (java.util.concurrent.TimeoutException running) {
+                long cpu = w.cpu() - cpuStart, wall = System.nanoTime() - wallStart;
+                if (!stopped && (cpu > budget || wall > HARD_STOP_FACTOR * budget)) {
+                    stopped = true;
+                    engine.stopRequest();
+                    w.thread.interrupt();
+                    stoppedAt = System.nanoTime();
+                } else if (stopped && System.nanoTime() - stoppedAt > GRACE_NANOS) {
+                    w.abandon();
+                    worker = null;
+                    throw new Failure(timedOutMessage(seconds), true);
+                }
+            } catch (java.util.concurrent.ExecutionException ex) {
+                if (stopped) throw new Failure(timedOutMessage(seconds), true);
+                // Not only StackOverflowError: Symja's own assertions (under -ea) throw Errors from inside an
+                // evaluation, and the numeric side can still answer.
+                Throwable cause = ex.getCause() == null ? ex : ex.getCause();
+                String why = cause.getClass().getSimpleName().equals("BigIntegerLimitExceeded")
+                        ? "a number past " + Config.MAX_BIT_LENGTH + " bits" : cause.getClass().getSimpleName();
+                throw new Failure("the computer algebra system gave up (" + why + ")", false);
+            } catch (InterruptedException ex) {
+                Thread.currentThread().interrupt();
+                engine.stopRequest();
+                w.thread.interrupt();
+                throw new Failure("the symbolic computation was cancelled", true);
+            }
         }
-        if (result == timedOut || result.has(timedOut)) {
-            throw new Failure("symbolic computation timed out after " + seconds(seconds) + " s", true);
+    }
+
+    private static String timedOutMessage(double seconds) {
+        return "symbolic computation ran out of its " + seconds(seconds) + " s of CPU time";
+    }
+
+    /** How much longer than the CPU budget an evaluation may take by the wall clock before it is stopped anyway. */
+    static final long HARD_STOP_FACTOR = 12;
+    /** How long a stopped evaluation may take to notice before its worker is abandoned. */
+    private static final long GRACE_NANOS = 2_000_000_000L;
+    private static final java.lang.management.ThreadMXBean THREADS = java.lang.management.ManagementFactory.getThreadMXBean();
+
+    private long stoppedAt;
+    private Worker worker;
+
+    /** The thread this session's evaluations run on. */
+    private static final class Worker {
+        final java.util.concurrent.ExecutorService pool;
+        volatile Thread thread;
+
+        Worker() {
+            java.util.concurrent.CountDownLatch started = new java.util.concurrent.CountDownLatch(1);
+            pool = java.util.concurrent.Executors.newSingleThreadExecutor(r -> {
+                Thread t = new Thread(r, "plumb-symja");
+                t.setDaemon(true);
+                thread = t;
+                return t;
+            });
+            pool.submit(started::countDown);
+            try {
+                started.await();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
         }
-        if (result == S.$Aborted) {
-            throw new Failure("the computer algebra system aborted the computation", false);
+
+        /** The worker's CPU time in nanoseconds (its wall time where the JVM cannot measure CPU time). */
+        long cpu() {
+            long t = THREADS.isThreadCpuTimeSupported() ? THREADS.getThreadCpuTime(thread.getId()) : -1;
+            return t >= 0 ? t : System.nanoTime();
         }
-        return result;
+
+        @SuppressWarnings({"deprecation", "removal"})
+        void abandon() {
+            pool.shutdownNow();
+            // Arithmetic deep in a library (a huge BigInteger product) never looks at the stop request; on
+            // Java 17 such a thread can still be stopped, so it does not burn a core for the rest of the run.
+            try {
+                thread.stop();
+            } catch (UnsupportedOperationException | SecurityException notOnThisJava) {
+                // Newer Java cannot stop a thread: it stays a daemon and ends with the run.
+            }
+        }
+    }
+
+    private Worker worker() {
+        if (worker == null) worker = new Worker();
+        return worker;
+    }
+
+    /** Ends this session's worker thread. */
+    void close() {
+        if (worker != null) worker.pool.shutdownNow();
+        worker = null;
     }
 
     static String seconds(double s) {
