@@ -1,6 +1,7 @@
 package dev.plumb.symbolic;
 
 import dev.plumb.model.Status;
+import dev.plumb.units.Rational;
 import java.math.BigDecimal;
 import java.math.MathContext;
 import java.util.ArrayList;
@@ -44,8 +45,13 @@ final class Comparison {
         this.assumptions = assumptions;
     }
 
-    /** Compares a claimed expression with the true one. */
-    Verdict compare(IExpr claimed, IExpr truth) {
+    /**
+     * Compares a claimed expression with the true one. Both are first written in the basis of
+     * the 2019 SI ({@link SymbolTable#inBasis}), so that R_gas and N_A*k_B are the same thing.
+     */
+    Verdict compare(IExpr claimedAsWritten, IExpr truthAsWritten) {
+        IExpr claimed = translation.table().inBasis(claimedAsWritten);
+        IExpr truth = translation.table().inBasis(truthAsWritten);
         String symbolic;
         Boolean symbolicZero;
         try {
@@ -92,10 +98,15 @@ final class Comparison {
             return new Verdict(Status.UNDECIDED, "the symbolic and numeric tests disagree: " + symbolic + ", but the "
                     + numeric + " finds a difference", null, Optional.empty());
         }
-        return diagnose(claimed, truth, samples, points);
+        List<String> mentioned = translation.table().all().entrySet().stream()
+                .filter(e -> claimedAsWritten.has(e.getValue(), true) || truthAsWritten.has(e.getValue(), true)).map(Map.Entry::getKey).toList();
+        return diagnose(claimed, truth, samples, points, mentioned);
     }
 
-    private Verdict diagnose(IExpr claimed, IExpr truth, List<BigDecimal[]> samples, List<Map<ISymbol, IExpr>> points) {
+    /** {@code mentioned}: the names the two sides use as written, before the rewriting into the basis. */
+    private Verdict diagnose(IExpr claimed, IExpr truth, List<BigDecimal[]> samples, List<Map<ISymbol, IExpr>> points,
+                             List<String> mentioned) {
+        ConstantValues values = new ConstantValues(symja, translation.table(), sampler, assumptions);
         if (samples.stream().allMatch(s -> s[1].signum() == 0)) {
             return new Verdict(Status.FAILS, "it should be 0 but is not", null, Optional.empty());
         }
@@ -108,19 +119,31 @@ final class Comparison {
         if (constant) {
             if (first.signum() == 0) return new Verdict(Status.FAILS, "it is 0 but should not be", null, Optional.empty());
             Optional<String> exact = ExactNumber.identify(first, symja).flatMap(this::print);
+            if (exact.isEmpty() && ConstantValues.nearOne(first)) return values.nearOne(claimed, truth, first, samples.size(), false);
             String f = exact.orElse(first.round(new MathContext(8)).toString());
             String msg = f.equals("-1") ? "the sign is wrong: claimed/true = -1"
                     : "off by a constant factor: claimed/true = " + f + (exact.isEmpty() ? " (not identified exactly)" : "");
             return new Verdict(Status.FAILS, msg, f, Optional.of(first));
         }
-        return new Verdict(Status.FAILS, dependence(claimed, truth, points.get(0)), null, Optional.empty());
+        Dependence d = dependence(claimed, truth, points.get(0));
+        if (d == null) return new Verdict(Status.FAILS, "the two sides differ", null, Optional.empty());
+        Optional<Verdict> byValue = values.judge(claimed, truth, points, d, mentioned, samples.size());
+        return byValue.orElseGet(() -> new Verdict(Status.FAILS, describe(d), null, Optional.empty()));
     }
 
-    /** How the ratio claimed/true varies: a power of each quantity it depends on, or not a power law. */
-    private String dependence(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> base) {
+    /**
+     * How the ratio claimed/true varies at a sample point: the exponent of each quantity it
+     * varies with as a power, the quantities it varies with otherwise, and the coordinate when
+     * the difference is free of it (else null).
+     */
+    record Dependence(Map<String, Rational> powers, List<String> other, String differenceFreeOf) {
+    }
+
+    /** How the ratio claimed/true varies: a power of each quantity it depends on, or not a power law; null when it has no value. */
+    private Dependence dependence(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> base) {
         BigDecimal r0 = ratio(claimed, truth, base);
-        if (r0 == null) return "the two sides differ";
-        Map<String, String> powers = new LinkedHashMap<>();
+        if (r0 == null) return null;
+        Map<String, Rational> powers = new LinkedHashMap<>();
         List<String> other = new ArrayList<>();
         for (var entry : translation.table().all().entrySet()) {
             ISymbol v = entry.getValue();
@@ -133,29 +156,40 @@ final class Comparison {
             double q3 = r3.divide(r0, Sampler.MC).doubleValue();
             double a2 = q2 > 0 ? Math.log(q2) / Math.log(2) : Double.NaN;
             double a3 = q3 > 0 ? Math.log(q3) / Math.log(3) : Double.NaN;
-            var exponent = dev.plumb.units.Rational.approximate(a2, 12);
+            var exponent = Rational.approximate(a2, 12);
             // An exponent of 0 is a ratio that varies, only too little for the power test: not a power law.
             if (!Double.isNaN(a2) && Math.abs(a2 - a3) < 1e-9 && exponent.isPresent() && exponent.get().toDouble() != 0
                     && Math.abs(exponent.get().toDouble() - a2) < 1e-9) {
-                powers.put(entry.getKey(), exponent.get().toString());
+                powers.put(entry.getKey(), exponent.get());
             } else {
                 other.add(entry.getKey());
             }
         }
-        List<String> parts = new ArrayList<>();
-        if (!powers.isEmpty()) {
-            List<String> f = new ArrayList<>();
-            powers.forEach((n, e) -> f.add(e.equals("1") ? n : n + "^" + (e.contains("/") || e.startsWith("-") ? "(" + e + ")" : e)));
-            parts.add("differs by a factor proportional to " + String.join("*", f));
-        }
-        if (!other.isEmpty()) {
-            parts.add("claimed/true depends on " + String.join(", ", other) + (powers.isEmpty() ? "" : " in a way that is not a power law"));
-        }
         String coord = translation.table().name(translation.table().coordinate);
-        if (!powers.containsKey(coord) && other.contains(coord) && differenceFreeOf(claimed, truth, base)) {
-            parts.add("the difference does not depend on " + coord + " (a constant of integration or a boundary value is off)");
+        boolean freeOfCoordinate = !powers.containsKey(coord) && other.contains(coord) && differenceFreeOf(claimed, truth, base);
+        return new Dependence(powers, other, freeOfCoordinate ? coord : null);
+    }
+
+    static String describe(Dependence d) {
+        List<String> parts = new ArrayList<>();
+        if (!d.powers().isEmpty()) parts.add("differs by a factor proportional to " + monomial(d.powers()));
+        if (!d.other().isEmpty()) {
+            parts.add("claimed/true depends on " + String.join(", ", d.other()) + (d.powers().isEmpty() ? "" : " in a way that is not a power law"));
+        }
+        if (d.differenceFreeOf() != null) {
+            parts.add("the difference does not depend on " + d.differenceFreeOf() + " (a constant of integration or a boundary value is off)");
         }
         return parts.isEmpty() ? "the two sides differ" : String.join("; ", parts);
+    }
+
+    /** {@code G^(-1)*M^2}: the powers in plumb's syntax. */
+    static String monomial(Map<String, Rational> powers) {
+        List<String> f = new ArrayList<>();
+        powers.forEach((n, r) -> {
+            String e = r.toString();
+            f.add(e.equals("1") ? n : n + "^" + (e.contains("/") || e.startsWith("-") ? "(" + e + ")" : e));
+        });
+        return String.join("*", f);
     }
 
     private boolean differenceFreeOf(IExpr claimed, IExpr truth, Map<ISymbol, IExpr> base) {

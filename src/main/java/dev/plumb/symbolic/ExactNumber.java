@@ -18,6 +18,24 @@ final class ExactNumber {
     private ExactNumber() {
     }
 
+    /**
+     * Whether the number is a small rational (numerator and denominator at most 100) times a
+     * small power of pi: the shape of a structural factor (2, 3/8, 1/(2*pi)), as opposed to a
+     * typed value such as 6.674e-11, or a unit's 1000 as in 1 g/mol typed for N_A*m_u.
+     */
+    static boolean isSmall(BigDecimal v, Symja symja) {
+        if (v.signum() == 0) return true;
+        BigDecimal pi = Sampler.decimal(symja.eval(F.N(F.Pi, F.ZZ(Sampler.DIGITS + 10))));
+        for (int k : PI_POWERS) {
+            BigDecimal scaled = k >= 0 ? v.divide(pi.pow(k), Sampler.MC) : v.multiply(pi.pow(-k), Sampler.MC);
+            Optional<Rational> q = Rational.approximate(scaled.doubleValue(), 100);
+            if (q.isEmpty() || Math.abs(q.get().num()) > 100) continue;
+            BigDecimal exact = new BigDecimal(q.get().num()).divide(new BigDecimal(q.get().den()), Sampler.MC);
+            if (Comparison.same(exact, scaled, TOLERANCE)) return true;
+        }
+        return false;
+    }
+
     static Optional<IExpr> identify(BigDecimal v, Symja symja) {
         return identify(v, symja, TOLERANCE);
     }

@@ -22,8 +22,9 @@ import org.matheclipse.core.interfaces.ISymbol;
  * Random points of the parameter domain and high-precision evaluation there. Parameters are
  * drawn as exact rationals (around a case value when the file has cases, so scales are
  * physical), built-in constants are scaled by a random factor (an identity must not hold only
- * for G's value), fixed parameters keep their value, and the coordinate falls inside its
- * interval. Evaluation runs at {@value #DIGITS} digits, so cancellation cannot fake a zero.
+ * for G's value; the comparison has already written R_gas, hbar and sigma_SB in the basis of the
+ * 2019 SI, so the constants left are independent), fixed parameters keep their value, and the
+ * coordinate falls inside its interval. Evaluation runs at {@value #DIGITS} digits, so cancellation cannot fake a zero.
  */
 final class Sampler {
 
@@ -55,10 +56,11 @@ final class Sampler {
                 continue;
             }
             var fixed = table.fixedValue(entry.getKey());
+            var constant = table.constantValue(entry.getKey());
             if (s instanceof Symbol.FixedParam && fixed.isPresent()) {
                 values.put(sym, Translation.rational(fixed.get()));
-            } else if (s instanceof Symbol.Builtin && fixed.isPresent()) {
-                values.put(sym, Translation.rational(fixed.get().multiply(uniform(0.5, 2)).round(MC)));
+            } else if (constant.isPresent()) {
+                values.put(sym, Translation.rational(constant.get().multiply(uniform(0.5, 2)).round(MC)));
             } else if (around != null && around.values().containsKey(entry.getKey())) {
                 values.put(sym, Translation.rational(new BigDecimal(around.values().get(entry.getKey())).multiply(uniform(0.5, 2)).round(MC)));
             } else {
@@ -71,6 +73,18 @@ final class Sampler {
             BigDecimal to = bound(t, coordinate.to(), values, from.add(BigDecimal.ONE));
             BigDecimal u = uniform(0.05, 0.95);
             values.put((ISymbol) x, Translation.rational(from.add(to.subtract(from).multiply(u)).round(MC)));
+        }
+        return values;
+    }
+
+    /**
+     * The point with every built-in constant at its own value instead of a random multiple (the
+     * other quantities as they were): where a claim is compared with the constants' values.
+     */
+    Map<ISymbol, IExpr> atConstantValues(Map<ISymbol, IExpr> point) {
+        Map<ISymbol, IExpr> values = new LinkedHashMap<>(point);
+        for (var entry : table.all().entrySet()) {
+            table.constantValue(entry.getKey()).ifPresent(v -> values.put(entry.getValue(), Translation.rational(v)));
         }
         return values;
     }

@@ -3,14 +3,18 @@ package dev.plumb.symbolic;
 import dev.plumb.lang.Stmt;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
+import dev.plumb.units.Constants;
+import dev.plumb.units.ExactRelations;
 import dev.plumb.units.Rational;
 import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import org.matheclipse.core.expression.F;
 import org.matheclipse.core.interfaces.IExpr;
 import org.matheclipse.core.interfaces.ISymbol;
@@ -27,12 +31,13 @@ final class SymbolTable {
     private final Map<String, ISymbol> toSymja = new LinkedHashMap<>();
     private final Map<ISymbol, String> toPlumb = new HashMap<>();
     private final Map<String, IExpr> exactValues = new HashMap<>();
+    private final Set<String> builtins = new LinkedHashSet<>();
+    private final Map<ISymbol, IExpr> inBasis = new LinkedHashMap<>();
     private final Model model;
     final ISymbol coordinate;
 
     SymbolTable(Model model) {
         this.model = model;
-        int builtin = 0;
         int user = 0;
         for (Symbol s : model.symbols().values()) {
             if (s instanceof Symbol.Definition) continue;
@@ -44,13 +49,72 @@ final class SymbolTable {
                     continue;
                 }
             }
-            String privateName = s instanceof Symbol.Builtin ? String.format("pa%03d", builtin++) : String.format("pb%03d", user++);
-            ISymbol sym = F.Dummy(privateName);
+            if (s instanceof Symbol.Builtin) {
+                builtin(s.name());
+                continue;
+            }
+            ISymbol sym = F.Dummy(String.format("pb%03d", user++));
             toSymja.put(s.name(), sym);
             toPlumb.put(sym, s.name());
         }
+        for (ExactRelations.Relation r : ExactRelations.all()) {
+            if (!(model.symbols().get(r.derived()) instanceof Symbol.Builtin)) continue;
+            // A declaration that shadows a basis constant (param k_B = ...) makes the relation false for this file.
+            if (!r.powers().keySet().stream().allMatch(b -> model.symbols().get(b) == null || model.symbols().get(b) instanceof Symbol.Builtin)) continue;
+            IExpr basis = F.Times(F.QQ(r.coefficient().num(), r.coefficient().den()), F.Power(F.Pi, F.ZZ(r.piPower())));
+            for (var p : r.powers().entrySet()) basis = F.Times(basis, F.Power(builtin(p.getKey()), F.ZZ(p.getValue())));
+            inBasis.put(toSymja.get(r.derived()), basis);
+        }
         coordinate = model.coordinate().map(c -> toSymja.get(c.name())).orElse(F.Dummy("pzcoord"));
         if (model.coordinate().isEmpty()) toPlumb.put(coordinate, "x");
+    }
+
+    /**
+     * The private symbol of a built-in constant, made on first use: a basis constant that only a
+     * relation brings in (N_A for R_gas) gets one too. Numbered by the built-in order, so that
+     * Symja's canonical order puts them as the constants table does.
+     */
+    private ISymbol builtin(String name) {
+        ISymbol known = toSymja.get(name);
+        if (known != null) return known;
+        int index = new ArrayList<>(Constants.all().keySet()).indexOf(name);
+        ISymbol sym = F.Dummy(String.format("pa%03d", index));
+        toSymja.put(name, sym);
+        toPlumb.put(sym, name);
+        builtins.add(name);
+        return sym;
+    }
+
+    /**
+     * The expression with every derived built-in constant (R_gas, hbar, sigma_SB) written in the
+     * basis of the 2019 SI (N_A*k_B, h/(2*pi), 2*pi^5*k_B^4/(15*h^3*c^2)), so that a comparison
+     * knows the exact relations; the symbols that remain are independent.
+     */
+    IExpr inBasis(IExpr e) {
+        if (inBasis.isEmpty()) return e;
+        return e.replaceAll(x -> x instanceof ISymbol s && inBasis.containsKey(s) ? inBasis.get(s) : F.NIL).orElse(e);
+    }
+
+    /** Whether the name is a built-in constant with a private symbol (used in the file or brought in by a relation). */
+    boolean isBuiltin(String name) {
+        return builtins.contains(name);
+    }
+
+    /**
+     * The SI value of a built-in constant exactly as its source prints it ({@code 6.67430e-11} is
+     * exactly 667430/10^16), or, for one computed in double precision, that double.
+     */
+    Optional<BigDecimal> constantValue(String name) {
+        if (!builtins.contains(name)) return Optional.empty();
+        var published = Constants.published(name);
+        if (published.isPresent()) {
+            try {
+                return Optional.of(new BigDecimal(published.get()));
+            } catch (NumberFormatException relation) {
+                // A derived constant prints its relation; its double value follows.
+            }
+        }
+        return Constants.lookup(name).map(c -> new BigDecimal(c.value()));
     }
 
     /**
@@ -110,6 +174,8 @@ final class SymbolTable {
                 }
             }
         }
+        // The basis constants that only a relation brings in are positive too.
+        for (String b : builtins) if (!model.symbols().containsKey(b)) facts.add(F.Greater(toSymja.get(b), F.C0));
         return facts.isEmpty() ? F.True : F.And(facts.toArray(IExpr[]::new));
     }
 

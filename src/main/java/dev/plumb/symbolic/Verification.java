@@ -61,9 +61,11 @@ final class Verification {
             String missing = missing(t, quantity, claimed);
             if (missing != null) return Check.of("claim", label, c.span(), Status.UNDECIDED, missing);
             Comparison.Verdict v = comparison(t, c.span().line()).compare(claimed, quantity);
+            String derived = print(quantity);
+            // A claim about a quantity with no closed form behind it (R_gas*T) has no derived value worth repeating.
             String msg = v.holds() ? "holds: " + v.message()
-                    : v.status() == Status.FAILS ? v.message() + "; the derived value is " + ExprPrinter.print(c.equation().lhs())
-                    + " = " + print(quantity) : v.message();
+                    : v.status() == Status.FAILS && !derived.equals(ExprPrinter.print(c.equation().lhs()))
+                    ? v.message() + "; the derived value is " + ExprPrinter.print(c.equation().lhs()) + " = " + derived : v.message();
             return withFactor(Check.of("claim", label, c.span(), v.status(), msg), v.factor());
         } catch (Translation.Untranslatable u) {
             return Check.of("claim", label, c.span(), Status.UNDECIDED, u.getMessage());

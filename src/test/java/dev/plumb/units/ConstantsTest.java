@@ -4,6 +4,9 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.math.RoundingMode;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 
@@ -51,6 +54,44 @@ class ConstantsTest {
     assertEquals(sigma, value("sigma_SB"), 1e-9 * sigma);
     // CODATA 2018: m_p / m_e = 1836.15267343.
     assertEquals(1836.15267343, value("m_p") / value("m_e"), 1e-9 * 1836.15267343);
+  }
+
+  @Test
+  void exactRelationsOfThe2019SiAgreeWithCodatasPrintedDigits() {
+    // SI Brochure (9th ed.): h = 6.626 070 15e-34 J s, k = 1.380 649e-23 J/K, N_A = 6.022 140 76e23 /mol and
+    // c = 299 792 458 m/s exactly, so R = N_A k, hbar = h/(2 pi) and sigma = 2 pi^5 k^4/(15 h^3 c^2) are exact.
+    // CODATA 2018 prints them cut off after ten digits with an ellipsis (truncated, not rounded):
+    // R = 8.314 462 618... J mol^-1 K^-1, hbar = 1.054 571 817...e-34 J s, sigma = 5.670 374 419...e-8 W m^-2 K^-4.
+    MathContext ten = new MathContext(10, RoundingMode.DOWN);
+    BigDecimal h = new BigDecimal("6.62607015e-34");
+    BigDecimal k = new BigDecimal("1.380649e-23");
+    BigDecimal c = new BigDecimal("299792458");
+    BigDecimal pi = new BigDecimal("3.14159265358979323846264338327950288");
+    BigDecimal r = new BigDecimal("6.02214076e23").multiply(k);
+    BigDecimal hbar = h.divide(pi.add(pi), MathContext.DECIMAL128);
+    BigDecimal sigma = pi.pow(5).multiply(k.pow(4)).multiply(BigDecimal.valueOf(2))
+        .divide(h.pow(3).multiply(c.pow(2)).multiply(BigDecimal.valueOf(15)), MathContext.DECIMAL128);
+    assertEquals(new BigDecimal("8.314462618"), r.round(ten));
+    assertEquals(new BigDecimal("1.054571817e-34"), hbar.round(ten));
+    assertEquals(new BigDecimal("5.670374419e-8"), sigma.round(ten));
+    // The values plumb uses are those exact ones to double precision, not the ten printed digits.
+    assertEquals(r.doubleValue(), value("R_gas"), 2e-16 * r.doubleValue());
+    assertEquals(hbar.doubleValue(), value("hbar"), 4e-16 * hbar.doubleValue());
+    assertEquals(sigma.doubleValue(), value("sigma_SB"), 1e-15 * sigma.doubleValue());
+    for (ExactRelations.Relation rel : ExactRelations.all()) {
+      assertTrue(ExactRelations.isExact(rel.derived()), rel.derived());
+      rel.powers().keySet().forEach(b -> assertTrue(ExactRelations.isExact(b), b));
+    }
+    // Measured in CODATA 2018, so in no exact relation: G, m_u, m_e, m_p.
+    for (String measured : List.of("G", "m_u", "m_e", "m_p")) assertFalse(ExactRelations.isExact(measured), measured);
+  }
+
+  @Test
+  void publishedValuesKeepTheirPrintedDigits() {
+    // CODATA 2018: G = 6.674 30(15)e-11 m^3 kg^-1 s^-2, printed with its trailing zero.
+    assertEquals("6.67430e-11", Constants.published("G").orElseThrow());
+    assertEquals(value("G"), Double.parseDouble(Constants.published("G").orElseThrow()), 0.0);
+    assertTrue(Constants.published("R_gas").orElseThrow().startsWith("N_A*k_B = 8.314462618"));
   }
 
   @Test
