@@ -125,16 +125,25 @@ public final class Parser {
         Token name = identifier("expected the parameter's name after 'param'");
         UnitText unit = optionalUnit();
         Assumption assumption = null;
+        List<Stmt.Bound> bounds = new ArrayList<>();
         Expr value = null;
         Span end = unit != null ? unit.span() : name.span();
-        if (check(TokenType.GREATER) || check(TokenType.GREATER_EQUAL)) {
-            Token op = advance();
-            Token zero = consume(TokenType.NUMBER, "expected 0 after '" + op.text() + "': a parameter may be assumed > 0 or >= 0");
-            if (Double.parseDouble(zero.text()) != 0.0) {
-                throw error(zero, "only '> 0' and '>= 0' assumptions are supported, found " + op.text() + " " + zero.text());
-            }
-            assumption = op.is(TokenType.GREATER) ? Assumption.POSITIVE : Assumption.NON_NEGATIVE;
-            end = zero.span();
+        if (isComparison()) {
+            // Constraints separated by commas: '> 0' or '>= 0' is the sign, anything else an order (< R).
+            do {
+                if (!isComparison()) throw error(peek(), "expected a comparison such as < R after ','");
+                Token op = advance();
+                Expr bound = expression();
+                boolean zero = bound instanceof Expr.Num n && n.value() == 0.0;
+                if (zero && op.is(TokenType.GREATER) && assumption == null) {
+                    assumption = Assumption.POSITIVE;
+                } else if (zero && op.is(TokenType.GREATER_EQUAL) && assumption == null) {
+                    assumption = Assumption.NON_NEGATIVE;
+                } else {
+                    bounds.add(new Stmt.Bound(compareOp(op), bound, op.span().to(bound.span())));
+                }
+                end = bound.span();
+            } while (match(TokenType.COMMA));
         } else if (match(TokenType.EQUALS)) {
             value = expression();
             if (unit != null && value instanceof Expr.Num n) {
@@ -142,7 +151,7 @@ public final class Parser {
             }
             end = value.span();
         }
-        return new Stmt.Param(name.text(), name.span(), unit, assumption, value, keyword.span().to(end));
+        return new Stmt.Param(name.text(), name.span(), unit, assumption, bounds, value, keyword.span().to(end));
     }
 
     private Stmt coord(Token keyword) {
@@ -423,6 +432,19 @@ public final class Parser {
         }
         Token close = consume(TokenType.RPAREN, "expected ')' or ',' in the call of '" + callee.text() + "'");
         return new Expr.Call(callee.text(), callee.span(), order, args, callee.span().to(close.span()));
+    }
+
+    private boolean isComparison() {
+        return check(TokenType.LESS) || check(TokenType.LESS_EQUAL) || check(TokenType.GREATER) || check(TokenType.GREATER_EQUAL);
+    }
+
+    private static CompareOp compareOp(Token t) {
+        return switch (t.type()) {
+            case LESS -> CompareOp.LT;
+            case LESS_EQUAL -> CompareOp.LE;
+            case GREATER -> CompareOp.GT;
+            default -> CompareOp.GE;
+        };
     }
 
     private Expr ifExpression() {

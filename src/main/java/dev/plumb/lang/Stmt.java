@@ -28,8 +28,22 @@ public sealed interface Stmt {
      * {@code param M [kg] > 0} (a free parameter with an assumption) or {@code param n = 3}
      * (a fixed value); {@code unit}, {@code assumption} and {@code value} may each be null.
      */
-    record Param(String name, Span nameSpan, UnitText unit, Assumption assumption, Expr value, Span span)
-            implements Stmt { }
+    record Param(String name, Span nameSpan, UnitText unit, Assumption assumption, List<Bound> bounds, Expr value, Span span)
+            implements Stmt {
+        public Param {
+            bounds = List.copyOf(bounds);
+        }
+    }
+
+    /**
+     * An order between a free parameter and another quantity, {@code < R} in {@code param Rc [m] > 0, < R}:
+     * the parameter compared by {@code op} with {@code value}.
+     */
+    record Bound(Expr.CompareOp op, Expr value, Span span) {
+        public String text() {
+            return op.symbol + " " + ExprPrinter.print(value);
+        }
+    }
 
     /** A sign assumption on a free parameter: {@code > 0} or {@code >= 0}. */
     enum Assumption {

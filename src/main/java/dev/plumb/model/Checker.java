@@ -61,6 +61,7 @@ public final class Checker {
         for (Stmt s : program.statements()) statement(s);
         describeHeldUnits();
         List<CaseValues> cases = cases();
+        if (!diagnostics.hasErrors()) checkCaseAssumptions(cases);
         checkExpectCases();
         Map<String, Symbol> symbols = symbols();
         reportInferredUnits(symbols);
@@ -221,6 +222,8 @@ public final class Checker {
                     inference.mismatch(value, inference.unit(p.unit().text(), p.unit().span()), p.value().span(),
                             "the value of '" + p.name() + "' does not have its declared unit [" + p.unit().text() + "]", p.value(), null, true);
                 }
+            } else if (s instanceof Stmt.Param p && !p.bounds().isEmpty()) {
+                for (Stmt.Bound b : p.bounds()) bound(p, b);
             } else if (s instanceof Stmt.Coord c) {
                 DimForm cf = inference.symbolForm(c.name());
                 inference.mismatch(inference.infer(c.from()), cf, c.from().span(),
@@ -237,6 +240,49 @@ public final class Checker {
                 }
             } else if (s instanceof Stmt.Let l) {
                 inference.symbolForm(l.name());
+            }
+        }
+    }
+
+    /** An order such as {@code Rc < R}: the other side has the parameter's unit and a fixed value in each case. */
+    private void bound(Stmt.Param p, Stmt.Bound b) {
+        for (String name : References.names(b.value())) {
+            Stmt decl = declarations.get(name);
+            if (decl instanceof Stmt.Unknown || decl instanceof Stmt.Coord || name.equals(p.name())) {
+                diagnostics.error(b.value().span(), "'" + p.name() + " " + b.text() + "' must compare with a fixed value in each case, "
+                        + "but it uses '" + name + "'");
+                return;
+            }
+        }
+        inference.mismatch(inference.infer(b.value()), inference.symbolForm(p.name()), b.value().span(),
+                "'" + p.name() + " " + b.text() + "' compares quantities of different units", b.value(), null, true);
+    }
+
+    /** Each case's values keep the sign and order the declarations assume (M = -1 for M > 0 is an error). */
+    private void checkCaseAssumptions(List<CaseValues> cases) {
+        for (CaseValues c : cases) {
+            ConstantEvaluator values = new ConstantEvaluator(this::constantSymbol, c.values());
+            Stmt.Case statement = program.all(Stmt.Case.class).stream().filter(k -> k.label().name().equals(c.label())).findFirst().orElse(null);
+            if (statement == null) continue;
+            for (Stmt.Assignment a : statement.assignments()) {
+                if (!(declarations.get(a.name()) instanceof Stmt.Param p) || p.value() != null) continue;
+                double v = c.values().get(a.name());
+                if (p.assumption() == Stmt.Assumption.POSITIVE && !(v > 0) || p.assumption() == Stmt.Assumption.NON_NEGATIVE && !(v >= 0)) {
+                    diagnostics.error(a.value().span(), "case '" + c.label() + "' gives " + a.name() + " = " + ExprPrinter.print(a.value())
+                            + ", but '" + a.name() + "' is declared " + p.assumption().text);
+                }
+                for (Stmt.Bound b : p.bounds()) {
+                    try {
+                        double other = values.evaluate(b.value());
+                        if (!b.op().test(v, other)) {
+                            diagnostics.error(a.value().span(), "case '" + c.label() + "' gives " + a.name() + " = " + ExprPrinter.print(a.value())
+                                    + ", which breaks '" + a.name() + " " + b.text() + "' (" + ExprPrinter.print(b.value()) + " = "
+                                    + String.format("%.6g", other) + " in SI)");
+                        }
+                    } catch (ConstantEvaluator.NotConstant unknownHere) {
+                        // Reported with the declaration.
+                    }
+                }
             }
         }
     }
@@ -417,7 +463,7 @@ public final class Checker {
         for (Stmt s : declarations.values()) {
             Symbol sym = null;
             if (s instanceof Stmt.Param p) {
-                sym = p.value() != null ? fixedParam(p) : new Symbol.FreeParam(p.name(), p.nameSpan(), dim(p.name()), p.assumption());
+                sym = p.value() != null ? fixedParam(p) : new Symbol.FreeParam(p.name(), p.nameSpan(), dim(p.name()), p.assumption(), p.bounds());
             } else if (s instanceof Stmt.Coord c) {
                 sym = new Symbol.Coordinate(c.name(), c.nameSpan(), dim(c.name()), c.from(), c.to());
             } else if (s instanceof Stmt.Let l) {

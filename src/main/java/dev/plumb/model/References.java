@@ -18,8 +18,9 @@ public final class References {
 
     public static Set<String> names(Stmt s) {
         Set<String> out = new LinkedHashSet<>();
-        if (s instanceof Stmt.Param p && p.value() != null) {
-            collect(p.value(), out);
+        if (s instanceof Stmt.Param p) {
+            if (p.value() != null) collect(p.value(), out);
+            p.bounds().forEach(b -> collect(b.value(), out));
         } else if (s instanceof Stmt.Coord c) {
             collect(c.from(), out);
             collect(c.to(), out);

@@ -17,8 +17,20 @@ public sealed interface Symbol {
 
     Dimension dimension();
 
-    /** A free symbolic parameter such as {@code param M [kg] > 0}; {@code assumption} may be null. */
-    record FreeParam(String name, Span span, Dimension dimension, Stmt.Assumption assumption) implements Symbol { }
+    /**
+     * A free symbolic parameter such as {@code param M [kg] > 0}; {@code assumption} may be null, and
+     * {@code bounds} orders it against other quantities ({@code param Rc [m] > 0, < R}).
+     */
+    record FreeParam(String name, Span span, Dimension dimension, Stmt.Assumption assumption, List<Stmt.Bound> bounds)
+            implements Symbol {
+        public FreeParam {
+            bounds = List.copyOf(bounds);
+        }
+
+        public FreeParam(String name, Span span, Dimension dimension, Stmt.Assumption assumption) {
+            this(name, span, dimension, assumption, List.of());
+        }
+    }
 
     /** A parameter with a fixed value, {@code param n = 3}; {@code value} is in SI base units. */
     record FixedParam(String name, Span span, Dimension dimension, double value, Expr expr) implements Symbol { }

@@ -31,7 +31,7 @@ public final class NumericIdentity {
     /** The agreement asked for, relative, below which no solver error estimate can be trusted anyway. */
     private static final double FLOOR = 1e-10;
     /** How much larger than the error estimate a difference must be to count. */
-    private static final double SAFETY = 100;
+    private static final double SAFETY = 20;
 
     private NumericIdentity() {
     }
@@ -118,11 +118,14 @@ public final class NumericIdentity {
         return Check.of(kind, label, span, Status.FAILS, "fails: the two sides differ (the true side is 0 where the claimed is not) in the " + route);
     }
 
-    /** A ratio as a short exact-looking number (2, -1, 1/2, 3/4) when it is one to 1e-9, else 8 figures. */
+    /**
+     * A ratio as a short exact-looking number (2, -1, 1/2, 3/4) when it is one to 1e-7 (the ratio was
+     * found constant to 1e-8, and solved values carry errors near 1e-9), else 8 figures.
+     */
     static String factor(double q) {
         for (int den = 1; den <= 12; den++) {
             double num = Math.rint(q * den);
-            if (num != 0 && Math.abs(q * den - num) <= 1e-9 * Math.abs(q * den)) {
+            if (num != 0 && Math.abs(q * den - num) <= 1e-7 * Math.abs(q * den)) {
                 return den == 1 ? Long.toString((long) num) : (long) num + "/" + den;
             }
         }
@@ -140,15 +143,37 @@ public final class NumericIdentity {
         for (CaseValues c : model.cases().subList(0, Math.min(MAX_CASES, model.cases().size()))) {
             out.add(c.values());
             for (int k = 1; k < PER_CASE; k++) {
-                Map<String, Double> v = new LinkedHashMap<>(c.values());
-                for (Symbol.FreeParam p : model.freeParams()) {
-                    Double base = v.get(p.name());
-                    if (base != null) v.put(p.name(), base * Math.exp((random.nextDouble() * 2 - 1) * Math.log(1.25)));
+                // Drawn again until the declared orders between parameters (Rc < R) hold, at most 20 times.
+                for (int tries = 0; tries < 20; tries++) {
+                    Map<String, Double> v = new LinkedHashMap<>(c.values());
+                    for (Symbol.FreeParam p : model.freeParams()) {
+                        Double base = v.get(p.name());
+                        if (base != null) v.put(p.name(), base * Math.exp((random.nextDouble() * 2 - 1) * Math.log(1.25)));
+                    }
+                    if (ordered(model, v)) {
+                        out.add(v);
+                        break;
+                    }
                 }
-                out.add(v);
             }
         }
         return out;
+    }
+
+    private static boolean ordered(Model model, Map<String, Double> values) {
+        dev.plumb.model.ConstantEvaluator ev = new dev.plumb.model.ConstantEvaluator(n -> model.symbols().get(n), values);
+        for (Symbol.FreeParam p : model.freeParams()) {
+            for (Stmt.Bound b : p.bounds()) {
+                Double v = values.get(p.name());
+                if (v == null) continue;
+                try {
+                    if (!b.op().test(v, ev.evaluate(b.value()))) return false;
+                } catch (dev.plumb.model.ConstantEvaluator.NotConstant cannotTell) {
+                    // An order that cannot be evaluated here does not rule the point out.
+                }
+            }
+        }
+        return true;
     }
 
     /** Places strictly inside the interval (its ends as the solved case has them), or null when they cannot be had. */

@@ -41,8 +41,31 @@ final class Sampler {
         this.random = new Random(seed);
     }
 
-    /** One random point: a value for every private symbol but the profile heads. */
+    /**
+     * One random point: a value for every private symbol but the profile heads, inside the orders the
+     * file declares between parameters ({@code Rc < R}); drawn again until it is, at most 50 times.
+     */
     Map<ISymbol, IExpr> point(Translation t) {
+        Map<ISymbol, IExpr> p = anyPoint(t);
+        for (int tries = 0; tries < 50 && !ordered(t, p); tries++) p = anyPoint(t);
+        return p;
+    }
+
+    private boolean ordered(Translation t, Map<ISymbol, IExpr> values) {
+        for (Symbol.FreeParam param : table.model().freeParams()) {
+            ISymbol sym = table.all().get(param.name());
+            if (sym == null || param.bounds().isEmpty()) continue;
+            BigDecimal v = Sampler.decimal(values.get(sym));
+            for (dev.plumb.lang.Stmt.Bound b : param.bounds()) {
+                BigDecimal other = bound(t, b.value(), values, null);
+                if (v == null || other == null) continue;
+                if (!b.op().test(v.doubleValue(), other.doubleValue())) return false;
+            }
+        }
+        return true;
+    }
+
+    private Map<ISymbol, IExpr> anyPoint(Translation t) {
         Map<ISymbol, IExpr> values = new LinkedHashMap<>();
         List<CaseValues> cases = table.model().cases();
         CaseValues around = cases.isEmpty() ? null : cases.get(random.nextInt(cases.size()));

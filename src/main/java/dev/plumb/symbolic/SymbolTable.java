@@ -162,6 +162,21 @@ final class SymbolTable {
             if (sym == null) continue;
             if (s instanceof Symbol.FreeParam p && p.assumption() == Stmt.Assumption.POSITIVE) facts.add(F.Greater(sym, F.C0));
             if (s instanceof Symbol.FreeParam p && p.assumption() == Stmt.Assumption.NON_NEGATIVE) facts.add(F.GreaterEqual(sym, F.C0));
+            if (s instanceof Symbol.FreeParam p) {
+                for (Stmt.Bound b : p.bounds()) {
+                    try {
+                        IExpr other = t.plain(b.value());
+                        facts.add(switch (b.op()) {
+                            case LT -> F.Less(sym, other);
+                            case LE -> F.LessEqual(sym, other);
+                            case GT -> F.Greater(sym, other);
+                            case GE -> F.GreaterEqual(sym, other);
+                        });
+                    } catch (Translation.Untranslatable ignored) {
+                        // An order that cannot be translated only weakens the assumptions.
+                    }
+                }
+            }
             if (s instanceof Symbol.Builtin) facts.add(F.Greater(sym, F.C0));
             if (s instanceof Symbol.FixedParam f && f.value() > 0) facts.add(F.Greater(sym, F.C0));
             if (s instanceof Symbol.UnknownConstant u && u.endOfInterval()) facts.add(F.Greater(sym, F.C0));
