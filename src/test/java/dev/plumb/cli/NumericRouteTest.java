@@ -95,6 +95,29 @@ class NumericRouteTest {
     }
 
     @Test
+    void theCompressibleOceanProfileHoldsAndAWrongOneFails() {
+        // Separation of variables: dP/dz = rho0 g exp(P/Kb) gives exp(-P/Kb) = 1 - rho0 g z/Kb, so
+        // P(z) = -Kb ln(1 - rho0 g z/Kb). Sea water rho0 = 1025 kg/m^3, Kb = 2.2e9 Pa: common practice values.
+        CheckedText t = CheckedText.of("ocean", """
+                param rho0 [kg/m^3] > 0
+                param g [m/s^2] > 0
+                param Kb [Pa] > 0
+                param D [m] > 0
+                coord z [m] from 0 to D
+                unknown P(z) [Pa]
+                relation balance: P'(z) = rho0*g*exp(P(z)/Kb)
+                boundary surface: P(0) = 0
+                claim profile: P(z) = -Kb*log(1 - rho0*g*z/Kb)
+                claim wrong: P(z) = Kb*log(1 + rho0*g*z/Kb)
+                case sea: rho0 = 1025 [kg/m^3], g = 9.80665 [m/s^2], Kb = 2.2e9 [Pa], D = 11 [km]
+                """);
+        assertEquals("holds", claim(t, "profile").get("status"), claim(t, "profile").toString());
+        Map<String, Object> wrong = claim(t, "wrong");
+        assertEquals("fails", wrong.get("status"), wrong.toString());
+        assertTrue(String.valueOf(wrong.get("message")).contains("not by a constant factor"), wrong.toString());
+    }
+
+    @Test
     void aProvenClaimNamesTheSymbolicRoute() {
         CheckedText t = CheckedText.of("uniform", """
                 param M [kg] > 0
