@@ -47,10 +47,11 @@ class ParseErrorTest {
     }
 
     @Test
-    void assumptionOtherThanZero() {
-        Diagnostic d = onlyError("param M [kg] > 1");
-        assertAt(d, 1, 16);
-        assertTrue(d.message().contains("only '> 0' and '>= 0'"), d.message());
+    void aConstraintAfterACommaMustBeAComparison() {
+        // 'param Rc [m] > 0, < R' orders parameters; after the comma a comparison must follow.
+        Diagnostic d = onlyError("param M [kg] > 0, 3");
+        assertAt(d, 1, 19);
+        assertTrue(d.message().contains("expected a comparison such as < R"), d.message());
     }
 
     @Test
