@@ -111,14 +111,15 @@ final class CaseProblem {
                 return reads.nextSetBit(form.derivativeSlot(0)) < 0 || reads.nextSetBit(form.derivativeSlot(0)) >= form.constantSlot(0);
             }
         });
-        system = RelationSystem.compile(form, compiler, () -> {
-            // Slot firstLockSlot counts evaluations; locks start free (NaN) and shared values unstamped (NaN).
-            double[] f = new double[form.firstLockSlot() + 1 + locks[0]];
-            Arrays.fill(f, form.firstLockSlot(), f.length, Double.NaN);
-            f[form.firstLockSlot()] = 0.0;
-            return f;
-        });
-        frame = system.frame;
+        RelationSystem.Parts parts = RelationCache.find(form, values);
+        if (parts == null) {
+            parts = RelationSystem.compile(form, compiler, () -> locks[0]);
+            RelationCache.keep(form, values, compiler.parametersRead(), parts);
+        } else {
+            // The start values below take their lock and shared slots after the relations', as when compiled here.
+            locks[0] = parts.locks();
+        }
+        int relationConditions = compiler.conditions().size();
         startValue = new Evaluator[form.stateSize];
         Map<String, Double> givenConstants = new java.util.LinkedHashMap<>();
         Map<Integer, Double> givenStarts = new java.util.LinkedHashMap<>();
@@ -165,7 +166,7 @@ final class CaseProblem {
                 surf = new Integration.Surface(comp, constant(other, "the surface value"), ExprPrinter.print(lhs));
                 surfB = bd;
             } else if (surfaceEvents && surf == null && otherKnown && arg != null && form.freeEnd == null
-                    && comp == form.base[componentProfile(comp)] && system.dependsOnComponent(comp)
+                    && comp == form.base[componentProfile(comp)] && RelationSystem.dependsOnComponent(form, parts.reads(), comp)
                     && !Formulation.mentionsUnknown(form.model, arg) && point(arg) == b && constant(other, "the boundary value") == 0.0) {
                 // Only when the relations depend on the component can they be undefined past its zero (a
                 // polytrope's P^(n/(n+1))), so that a plain condition at b could not be integrated to; otherwise
@@ -178,6 +179,13 @@ final class CaseProblem {
                 rest.add(bd);
             }
         }
+        // The frame is sized after the start values are compiled: they may take shared slots of their own.
+        // Slot firstLockSlot counts evaluations; locks start free (NaN) and shared values unstamped (NaN).
+        double[] newFrame = new double[form.firstLockSlot() + 1 + locks[0]];
+        Arrays.fill(newFrame, form.firstLockSlot(), newFrame.length, Double.NaN);
+        newFrame[form.firstLockSlot()] = 0.0;
+        system = new RelationSystem(form, newFrame, parts);
+        frame = system.frame;
         if (form.freeEnd != null && surf == null) {
             throw new SolveException(form.freeEnd.span(), "the end of the interval '" + form.freeEnd.name()
                     + "' is unknown, but no boundary says where it is: add one such as boundary "
@@ -259,7 +267,8 @@ final class CaseProblem {
         // Near a free surface the surface component falls far below any absolute tolerance (P ~ s^(n+1)),
         // and only relative control keeps its zero, and so the radius, accurate.
         if (surf != null) absTol[surf.index()] = 1e-40 * options.absTolScale() * scale[surf.index()];
-        List<ExprCompiler.CoordinateCondition> conds = compiler.conditions();
+        List<ExprCompiler.CoordinateCondition> conds = new ArrayList<>(parts.conditions());
+        conds.addAll(compiler.conditions().subList(relationConditions, compiler.conditions().size()));
         integration = new Integration(system, absTol, relTol, 1e-13 * scaleX,
                 PiecewiseBreaks.find(conds, frame, form.firstLockSlot(), a, limit), conds, scale);
     }

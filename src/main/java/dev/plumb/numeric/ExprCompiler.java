@@ -54,6 +54,7 @@ final class ExprCompiler {
     private final Map<Evaluator, BitSet> deps = new IdentityHashMap<>();
     private final List<CoordinateCondition> conditions = new ArrayList<>();
     private final Map<String, Evaluator> shared = new HashMap<>();
+    private final java.util.Set<String> parametersRead = new java.util.LinkedHashSet<>();
     private int depth;
 
     /**
@@ -63,6 +64,11 @@ final class ExprCompiler {
         this.model = model;
         this.values = values;
         this.slots = slots;
+    }
+
+    /** The parameters whose values the trees compiled so far have folded in. */
+    java.util.Set<String> parametersRead() {
+        return java.util.Set.copyOf(parametersRead);
     }
 
     List<CoordinateCondition> conditions() {
@@ -102,6 +108,7 @@ final class ExprCompiler {
         Symbol s = model.symbols().get(n.id());
         if (s instanceof Symbol.Coordinate) return slot(Slots.COORDINATE);
         if (s instanceof Symbol.FreeParam || s instanceof Symbol.FixedParam) {
+            parametersRead.add(n.id());
             Double v = values.get(n.id());
             if (v != null) return constant(v);
             if (s instanceof Symbol.FixedParam f) return constant(f.value());

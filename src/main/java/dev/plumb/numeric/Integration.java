@@ -4,7 +4,6 @@ import java.util.List;
 import org.apache.commons.math3.exception.MaxCountExceededException;
 import org.apache.commons.math3.exception.NumberIsTooSmallException;
 import org.apache.commons.math3.ode.events.EventHandler;
-import org.apache.commons.math3.ode.nonstiff.DormandPrince853Integrator;
 import org.apache.commons.math3.ode.sampling.StepHandler;
 import org.apache.commons.math3.ode.sampling.StepInterpolator;
 
@@ -125,55 +124,21 @@ final class Integration {
             throws SolveException {
         double span = Math.abs(x1 - x0);
         if (span <= 1e-11 * Math.max(Math.abs(x0), Math.abs(x1))) return shortSegment(x0, y0, x1, surface);
-        DormandPrince853Integrator dp = new Guarded(system, Math.min(minStep, span * 1e-3), span, absTol, relTol);
+        WatchedDormandPrince dp = new WatchedDormandPrince(system, Math.min(minStep, span * 1e-3), span, absTol, relTol, x0, y0);
         system.takeNonFinite();
         dp.setMaxEvaluations(2_000_000);
-        double[] last = {x0}, stepStart = {x0};
-        double[][] lastY = {y0.clone()}, stepStartY = {y0.clone()};
-        int[] steps = {0};
-        dp.addStepHandler(new StepHandler() {
-            @Override public void init(double t0, double[] y, double t) { }
-
-            @Override public void handleStep(StepInterpolator interpolator, boolean isLast) {
-                stepStart[0] = last[0];
-                stepStartY[0] = lastY[0];
-                last[0] = interpolator.getCurrentTime();
-                lastY[0] = interpolator.getInterpolatedState().clone();
-                steps[0]++;
-                if (lowest != null) {
-                    for (int i = 0; i < lowest.length; i++) {
-                        if (lastY[0][i] < lowest[i]) {
-                            lowest[i] = lastY[0][i];
-                            lowestAt[i] = last[0];
-                        }
-                    }
-                }
-            }
-        });
-        boolean[] hit = {false}, near = {false};
+        dp.lowest = lowest;
+        dp.lowestAt = lowestAt;
+        boolean[] hit = {false};
         if (surface != null && approach) {
             double sense = x1 > x0 ? 1.0 : -1.0, side = y0[surface.index()] >= surface.value() ? 1.0 : -1.0;
-            dp.addEventHandler(new EventHandler() {
-                @Override public void init(double t0, double[] y, double t) { }
-
-                @Override public double g(double t, double[] y) {
-                    return SurfaceApproach.gap(system, surface, origin, t, y, sense, side);
-                }
-
-                @Override public Action eventOccurred(double t, double[] y, boolean increasing) {
-                    if (increasing) return Action.CONTINUE;
-                    near[0] = true;
-                    return Action.STOP;
-                }
-
-                @Override public void resetState(double t, double[] y) { }
-            }, Math.max(span / 16, minStep * 10), Math.max(1e-9 * span, minStep), 200);
             // (Commons Math skips a step shorter than the event's convergence, sign change and all; a loose
             // convergence would let the switch slip by near the surface, where steps are short.)
+            dp.watch((t, y) -> SurfaceApproach.gap(system, surface, origin, t, y, sense, side),
+                    Math.max(span / 16, minStep * 10), Math.max(1e-9 * span, minStep), 200);
         }
-        // While the approach is watched the crossing needs no handler of its own: before y - v can change sign
-        // with a finite slope, the approach test has already turned negative. (Each handler costs an
-        // interpolation of every step.)
+        // While the approach is watched the crossing needs no test of its own: before y - v can change sign
+        // with a finite slope, the approach test has already turned negative.
         if (surface != null && !approach) {
             dp.addEventHandler(new EventHandler() {
                 @Override public void init(double t0, double[] y, double t) { }
@@ -189,28 +154,54 @@ final class Integration {
 
                 @Override public void resetState(double t, double[] y) { }
             }, Math.max(span / 16, minStep * 10), Math.max(1e-15 * Math.abs(x0), minStep * 1e-2), 200);
+            // The steps are recorded from the integrator's own end states, which past a crossing lie beyond it:
+            // with a Commons Math event the lowest values come from a step handler, which sees the truncated step.
+            dp.lowest = null;
+            if (lowest != null) {
+                dp.addStepHandler(new StepHandler() {
+                    @Override public void init(double t0, double[] y, double t) { }
+
+                    @Override public void handleStep(StepInterpolator interpolator, boolean isLast) {
+                        double[] at = interpolator.getInterpolatedState();
+                        for (int i = 0; i < lowest.length; i++) {
+                            if (at[i] < lowest[i]) {
+                                lowest[i] = at[i];
+                                lowestAt[i] = interpolator.getCurrentTime();
+                            }
+                        }
+                    }
+                });
+            }
         }
         double[] y = y0.clone();
         try {
-            double end = dp.integrate(system, x0, y0.clone(), x1, y);
-            if (near[0] && !hit[0]) {
+            double end;
+            boolean near = false;
+            try {
+                end = dp.integrate(system, x0, y0.clone(), x1, y);
+            } catch (WatchedDormandPrince.Reached switched) {
+                end = switched.x;
+                y = switched.y.clone();
+                near = true;
+            }
+            if (near) {
                 Stop tail = SurfaceApproach.finish(system, surface, end, y, absTol, relTol, minStep * 10);
-                if (tail != null) return new Stop(tail.x(), tail.y(), true, steps[0] + tail.steps(), false, tail.exponent());
+                if (tail != null) return new Stop(tail.x(), tail.y(), true, dp.steps + tail.steps(), false, tail.exponent());
                 // Not a power-law approach after all: go on in the coordinate, watching only for the crossing.
                 Stop rest = segment(end, y, x1, surface, origin, false);
-                return new Stop(rest.x(), rest.y(), rest.atSurface(), steps[0] + rest.steps(), rest.byApproach(), rest.exponent(),
+                return new Stop(rest.x(), rest.y(), rest.atSurface(), dp.steps + rest.steps(), rest.byApproach(), rest.exponent(),
                         rest.asymptote());
             }
             if (hit[0]) {
-                double asymptote = asymptote(stepStart[0], stepStartY[0], surface);
-                if (!Double.isNaN(asymptote)) return new Stop(end, y, false, steps[0], false, Double.NaN, asymptote);
+                double asymptote = asymptote(dp.stepStart, dp.stepStartY, surface);
+                if (!Double.isNaN(asymptote)) return new Stop(end, y, false, dp.steps, false, Double.NaN, asymptote);
             }
-            return new Stop(end, y, hit[0], steps[0]);
+            return new Stop(end, y, hit[0], dp.steps);
         } catch (NumberIsTooSmallException stalled) {
-            double xs = last[0];
-            double[] ys = lastY[0];
+            double xs = dp.last;
+            double[] ys = dp.lastY;
             if (surface != null && Math.abs(ys[surface.index()] - surface.value()) <= 1e-6 * scale[surface.index()]) {
-                return new Stop(xs, ys, true, steps[0], true);
+                return new Stop(xs, ys, true, dp.steps, true);
             }
             throw new SolveException(system.form.coordinate.span(), "the integration stalled at "
                     + system.form.coordinate.name() + " = " + String.format("%.9g", xs)
@@ -219,7 +210,7 @@ final class Integration {
                     + describe(ys) + "): the relations may be singular there");
         } catch (MaxCountExceededException tooMany) {
             throw new SolveException(system.form.coordinate.span(), "the integration needed more than 2,000,000 evaluations between "
-                    + system.form.coordinate.name() + " = " + String.format("%.6g", x0) + " and " + String.format("%.6g", last[0])
+                    + system.form.coordinate.name() + " = " + String.format("%.6g", x0) + " and " + String.format("%.6g", dp.last)
                     + " (tolerance " + relTol[0] + "): the relations are too stiff here");
         }
     }
@@ -270,26 +261,6 @@ final class Integration {
         }
         boolean crossed = surface != null && (y0[surface.index()] - surface.value()) * (y[surface.index()] - surface.value()) <= 0;
         return new Stop(x1, y, crossed, 1);
-    }
-
-    /**
-     * Dormand-Prince 8(5,3) that rejects any step in which a stage was not finite: the embedded
-     * error estimate alone would accept it, because the stand-in derivatives are equal in every
-     * stage and their weighted difference vanishes.
-     */
-    private static final class Guarded extends DormandPrince853Integrator {
-        private final RelationSystem system;
-
-        Guarded(RelationSystem system, double minStep, double maxStep, double[] absTol, double[] relTol) {
-            super(minStep, maxStep, absTol, relTol);
-            this.system = system;
-        }
-
-        @Override
-        protected double estimateError(double[][] yDotK, double[] y0, double[] y1, double h) {
-            double error = super.estimateError(yDotK, y0, y1, h);
-            return system.takeNonFinite() ? 1e10 : error;
-        }
     }
 
     String describe(double[] y) {

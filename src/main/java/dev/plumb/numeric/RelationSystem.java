@@ -37,28 +37,36 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
     private boolean lastFinite = true;
     private boolean nonFiniteSinceCheck;
 
-    RelationSystem(Formulation form, double[] frame, Evaluator[] explicit, Evaluator[] residual, BitSet reads) {
+    /**
+     * The compiled relations of one formulation for one set of the parameter values they read: trees and
+     * kernel hold no state (the frame does), so one set serves every solve that reads the same values,
+     * on any thread.
+     *
+     * @param locks the branch-lock and shared-value slots the relations use after the first lock slot
+     */
+    record Parts(Evaluator[] explicit, Evaluator[] residual, BitSet reads, boolean allExplicit, RelationKernel kernel, int locks,
+                 List<ExprCompiler.CoordinateCondition> conditions) { }
+
+    RelationSystem(Formulation form, double[] frame, Parts parts) {
         this.form = form;
         this.frame = frame;
-        this.reads = (BitSet) reads.clone();
-        this.explicit = explicit;
-        this.residual = residual;
+        this.reads = parts.reads();
+        this.explicit = parts.explicit();
+        this.residual = parts.residual();
         this.h = form.profiles.size();
-        boolean all = true;
-        for (Evaluator e : explicit) all &= e != null;
-        this.allExplicit = all;
+        this.allExplicit = parts.allExplicit();
         this.epochSlot = form.firstLockSlot();
-        this.highestIndex = new int[h];
-        int[] copyFrom = new int[form.stateSize];
-        java.util.Arrays.fill(copyFrom, -1);
+        this.highestIndex = highestIndex(form);
         boolean first = true;
-        for (int j = 0; j < h; j++) {
-            highestIndex[j] = form.base[j] + form.order[j] - 1;
-            first &= form.order[j] == 1;
-            for (int k = 0; k < form.order[j] - 1; k++) copyFrom[form.base[j] + k] = form.base[j] + k + 1;
-        }
+        for (int j = 0; j < h; j++) first &= form.order[j] == 1;
         this.firstOrder = first;
-        this.kernel = all ? KernelCompiler.compile(explicit, highestIndex, copyFrom, form.stateSize) : null;
+        this.kernel = parts.kernel();
+    }
+
+    private static int[] highestIndex(Formulation form) {
+        int[] out = new int[form.profiles.size()];
+        for (int j = 0; j < out.length; j++) out[j] = form.base[j] + form.order[j] - 1;
+        return out;
     }
 
     /**
@@ -66,6 +74,12 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
      * start value only adds a constant to it all along, so a condition on it is linear in that value.
      */
     boolean dependsOnComponent(int i) {
+        return dependsOnComponent(form, reads, i);
+    }
+
+    /** The same test on the slots a compiled system reads, before it is built. */
+    static boolean dependsOnComponent(Formulation form, BitSet reads, int i) {
+        int h = form.profiles.size();
         if (reads.get(1 + i)) return true;
         for (int j = 0; j < h; j++) if (i > form.base[j] && i < form.base[j] + form.order[j]) return true;
         return false;
@@ -76,9 +90,12 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
         return kernel != null;
     }
 
-    /** Compiles the relations of a formulation with a compiler bound to one case's values. */
-    static RelationSystem compile(Formulation form, ExprCompiler compiler, java.util.function.Supplier<double[]> frame)
-            throws SolveException {
+    /**
+     * Compiles the relations of a formulation with a compiler bound to one case's values.
+     *
+     * @param locks the lock and shared-value slots the compiler has handed out so far
+     */
+    static Parts compile(Formulation form, ExprCompiler compiler, java.util.function.IntSupplier locks) throws SolveException {
         int h = form.profiles.size();
         Evaluator[] explicit = new Evaluator[h];
         Evaluator[] residual = new Evaluator[h];
@@ -98,7 +115,18 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
             reads.or(compiler.depsOf(l));
             reads.or(compiler.depsOf(rr));
         }
-        return new RelationSystem(form, frame.get(), explicit, residual, reads);
+        boolean all = true;
+        for (Evaluator e : explicit) all &= e != null;
+        RelationKernel kernel = null;
+        if (all) {
+            int[] copyFrom = new int[form.stateSize];
+            Arrays.fill(copyFrom, -1);
+            for (int j = 0; j < h; j++) {
+                for (int k = 0; k < form.order[j] - 1; k++) copyFrom[form.base[j] + k] = form.base[j] + k + 1;
+            }
+            kernel = KernelCompiler.compile(explicit, highestIndex(form), copyFrom, form.stateSize);
+        }
+        return new Parts(explicit, residual, reads, all, kernel, locks.getAsInt(), compiler.conditions());
     }
 
     private static boolean isHighest(Expr e, Symbol.Profile p, int order) {

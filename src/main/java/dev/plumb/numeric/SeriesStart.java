@@ -10,8 +10,13 @@ package dev.plumb.numeric;
  */
 final class SeriesStart {
 
-    /** The state at {@code x}, and a description of how it was obtained. */
-    record Result(double x, double[] y, String description) { }
+    /** The state at {@code x} = a + h, started at {@code a}. */
+    record Result(double a, double h, double x, double[] y) {
+        /** How the state was obtained; formatted only when asked for (a sweep integrates thousands of starts and reads none). */
+        String description() {
+            return String.format("series start on [%s, %s%+.3g] (collocation degree %d, checked against %d)", trim(a), trim(a), h, HIGH, LOW);
+        }
+    }
 
     private static final int LOW = 8, HIGH = 12;
 
@@ -54,8 +59,7 @@ final class SeriesStart {
             }
         }
         if (good != null) {
-            return new Result(a + goodH, good, String.format("series start on [%s, %s%+.3g] (collocation degree %d, checked against %d)",
-                    trim(a), trim(a), goodH, HIGH, LOW));
+            return new Result(a, goodH, a + goodH, good);
         }
         throw new SolveException(f.form.coordinate.span(), "the relations are singular at " + f.form.coordinate.name() + " = "
                 + trim(a) + " and no series start converged (tried " + MAX_ATTEMPTS + " lengths down from " + String.format("%.3g", h0)

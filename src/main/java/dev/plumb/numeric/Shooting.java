@@ -48,7 +48,6 @@ final class Shooting {
             f = mismatch(p, t);
         }
         double norm = norm(f);
-        List<String> history = new ArrayList<>();
         // The first Jacobian comes from the scalings the relations allow when they fix it (no integration);
         // if a step along it fails, the finite differences take over.
         double[][] jac = Homology.jacobian(p, t, f);
@@ -91,7 +90,6 @@ final class Shooting {
                     lastFailure = failed.getMessage();
                 }
             }
-            history.add(String.format("%.3g", norm));
             if (!accepted && !freshJacobian) {
                 jac = null;
                 continue;

@@ -57,7 +57,7 @@ final class SolvedCase implements Solution {
     private static String describe(CaseProblem p, Shooting.Result r) {
         StringBuilder sb = new StringBuilder(Integration.METHOD);
         sb.append(String.format(", rtol %.0e, atol %.0e of each component's scale", p.options.relTol(), p.options.absTolScale()));
-        sb.append("; ").append(r.trajectory().startNote);
+        sb.append("; ").append(r.trajectory().startNote());
         if (p.integration.breaks.length > 0) {
             sb.append("; restarted at ").append(p.integration.breaks.length).append(" break(s) of a piecewise relation (")
                     .append(p.form.coordinate.name()).append(" = ");

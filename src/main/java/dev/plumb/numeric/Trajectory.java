@@ -18,7 +18,8 @@ final class Trajectory implements PointEvaluator.States {
     final double[] constants;
     final TreeMap<Double, double[]> states = new TreeMap<>();
     final double seriesX;
-    final String startNote;
+    /** The series start, or null for a regular start. */
+    private final SeriesStart.Result series;
     double surfaceX = Double.NaN;
     double[] surfaceState;
     boolean surfaceByApproach;
@@ -28,11 +29,11 @@ final class Trajectory implements PointEvaluator.States {
     /** The lowest value of each state component over the main integration, and where it was. */
     double[] lowest, lowestAt;
 
-    Trajectory(CaseProblem problem, double[] constants, double[] start, double seriesX, double[] seriesState, String startNote) {
+    Trajectory(CaseProblem problem, double[] constants, double[] start, double seriesX, double[] seriesState, SeriesStart.Result series) {
         this.problem = problem;
         this.constants = constants.clone();
         this.seriesX = seriesX;
-        this.startNote = startNote;
+        this.series = series;
         states.put(problem.a, start.clone());
         states.put(seriesX, seriesState.clone());
     }
@@ -50,7 +51,7 @@ final class Trajectory implements PointEvaluator.States {
         double[] slope = p.system.derivatives(p.a, y0);
         double x = p.a;
         double[] y = y0;
-        String note = "regular start";
+        SeriesStart.Result note = null;
         boolean singular = false;
         for (double s : slope) singular |= !Double.isFinite(s);
         if (singular) {
@@ -63,7 +64,7 @@ final class Trajectory implements PointEvaluator.States {
             p.seriesLength = r.x() - p.a;
             x = r.x();
             y = r.y();
-            note = r.description();
+            note = r;
         }
         Trajectory t = new Trajectory(p, consts, y0, x, y, note);
         // A free surface is sought out to the scale of the relations times 1e4, or a billion times the
@@ -116,6 +117,11 @@ final class Trajectory implements PointEvaluator.States {
             t.states.put(stop.x(), stop.y().clone());
         }
         return t;
+    }
+
+    /** How the integration started: regularly, or from a series at a singular point. */
+    String startNote() {
+        return series == null ? "regular start" : series.description();
     }
 
     boolean surfaceReached() {
