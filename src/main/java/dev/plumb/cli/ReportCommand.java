@@ -81,6 +81,12 @@ public final class ReportCommand implements Callable<Integer> {
                 files.putAll(doc.files());
                 files.put(base + "." + markup.extension(), text.getBytes(StandardCharsets.UTF_8));
             }
+            String clash = inputAmong(out, files);
+            if (clash != null) {
+                err.println("plumb: no report written: " + out.resolve(clash) + " is the input file, and an input is never overwritten; "
+                        + "choose another --out folder");
+                return 2;
+            }
             write(out, files);
         } catch (IOException e) {
             err.println("plumb: cannot write the report to " + out + ": " + e.getMessage());
@@ -88,6 +94,19 @@ public final class ReportCommand implements Callable<Integer> {
         }
         files.keySet().forEach(name -> stdout.println("wrote " + out.resolve(name)));
         return a.exitStatus(analysis.strict);
+    }
+
+    /** The name of an output that would replace the input file itself (same file, however it is reached), or null. */
+    private String inputAmong(Path dir, Map<String, byte[]> files) {
+        for (String name : files.keySet()) {
+            Path target = dir.resolve(name);
+            try {
+                if (Files.exists(target) && Files.isSameFile(target, file)) return name;
+            } catch (IOException cannotTell) {
+                if (target.toAbsolutePath().normalize().equals(file.toAbsolutePath().normalize())) return name;
+            }
+        }
+        return null;
     }
 
     private static String baseName(Path p) {

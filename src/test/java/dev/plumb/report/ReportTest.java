@@ -60,6 +60,18 @@ class ReportTest {
     }
 
     @Test
+    void theInputFileIsNeverOverwritten(@TempDir Path dir) throws Exception {
+        // A derivation saved as x.md, reported as Markdown into its own folder, would be replaced by x.md.
+        Path input = dir.resolve("x.md");
+        String text = Files.readString(Path.of("derivations/uniform-sphere.plumb"));
+        Files.writeString(input, text);
+        assertEquals(2, run("report", input.toString(), "--format", "md", "--out", dir.toString()));
+        assertEquals(text, Files.readString(input));
+        assertEquals(2, run("report", input.toString(), "--format", "md", "--out", dir.resolve(".").toString()));
+        assertEquals(text, Files.readString(input));
+    }
+
+    @Test
     void latexPrinterTypesetsGreekSubscriptsAndPowers() {
         dev.plumb.lang.Diagnostics d = new dev.plumb.lang.Diagnostics();
         dev.plumb.lang.Expr e = new dev.plumb.lang.Parser(new dev.plumb.lang.Lexer("rho_c*T0^(n+1)/k_B", d).tokens(), d)
