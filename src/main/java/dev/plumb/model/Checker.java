@@ -49,7 +49,7 @@ public final class Checker {
 
     private Model run() {
         if (program.statements().isEmpty() && !diagnostics.hasErrors()) {
-            diagnostics.warning(new Span(1, 1, 1, 2), "the file has no statements: there is nothing to check",
+            diagnostics.error(new Span(1, 1, 1, 2), "the file has no statements: there is nothing to check",
                     "a derivation starts with declarations such as: param M [kg] > 0");
         }
         declare();

@@ -66,6 +66,12 @@ class ExitStatusTest {
     }
 
     @Test
+    void aFileWithNothingToCheckIsTwo() throws IOException {
+        status(2, "");
+        status(2, "# only a comment\n\n");
+    }
+
+    @Test
     void aRequestThatCannotBeHonouredIsTwo() throws IOException {
         status(2, SPHERE + "show P(0) in [K]\n");
         status(2, SPHERE + "show P(3*R)\n");
