@@ -389,6 +389,13 @@ public final class Parser {
         if (t.is(TokenType.NUMBER)) {
             advance();
             double value = Double.parseDouble(t.text());
+            if (Double.isInfinite(value)) {
+                throw error(t, "the number " + t.text() + " is beyond the range of double precision (about 1.8e308)");
+            }
+            if (value != 0 && Math.abs(value) < Double.MIN_NORMAL || value == 0 && t.text().matches("[0-9.]*[1-9].*[eE]-.*")) {
+                throw error(t, "the number " + t.text() + " is too small to compute with (below about 2.2e-308, it would lose its "
+                        + "digits or become 0)");
+            }
             if (check(TokenType.UNIT)) {
                 Token u = advance();
                 return new Expr.Quantity(value, t.text(), u.text(), u.span(), t.span().to(u.span()));

@@ -99,7 +99,6 @@ public final class Checker {
                             + coord.span().line());
                     continue;
                 }
-                coord = c;
             } else if (s instanceof Stmt.Let l) {
                 name = l.name();
                 span = l.nameSpan();
@@ -114,6 +113,8 @@ public final class Checker {
                 diagnostics.error(span, "'" + name + "' is declared twice; the first declaration is at line " + previous.span().line());
                 continue;
             }
+            // Only a coordinate whose name is free becomes the coordinate (a clash with a parameter is the error above).
+            if (s instanceof Stmt.Coord c) coord = c;
             if (Constants.lookup(name).isPresent()) {
                 diagnostics.warning(span, "'" + name + "' shadows the built-in constant " + name + " ("
                         + Constants.lookup(name).get().description() + ")", "in this file '" + name + "' means your declaration");
@@ -198,6 +199,10 @@ public final class Checker {
         if (evaluating.add(p.name())) {
             try {
                 value = new ConstantEvaluator(this::constantSymbol, Map.of()).evaluate(p.value());
+                if (!Double.isFinite(value)) {
+                    diagnostics.error(p.value().span(), "the value of parameter '" + p.name() + "' is not a finite number in SI units "
+                            + "(it overflows, or divides by zero)");
+                }
             } catch (ConstantEvaluator.NotConstant e) {
                 diagnostics.error(e.where.span(), "the value of parameter '" + p.name() + "' must be a fixed number: " + e.getMessage(),
                         "a fixed parameter may use numbers, units, built-in constants and other fixed parameters");
@@ -432,7 +437,12 @@ public final class Checker {
 
     private boolean value(ConstantEvaluator evaluator, Expr e, String name, Map<String, Double> into) {
         try {
-            into.put(name, evaluator.evaluate(e));
+            double v = evaluator.evaluate(e);
+            if (!Double.isFinite(v)) {
+                diagnostics.error(e.span(), "the value of '" + name + "' is not a finite number in SI units (it overflows, or divides by zero)");
+                return false;
+            }
+            into.put(name, v);
             return true;
         } catch (ConstantEvaluator.NotConstant ex) {
             diagnostics.error(ex.where.span(), "a case value must be a fixed number: " + ex.getMessage());

@@ -66,6 +66,22 @@ class ExitStatusTest {
     }
 
     @Test
+    void numbersOutsideDoublePrecisionAndNameClashesAreLocatedErrors() throws IOException {
+        Run huge = check("param a = 1e999\n");
+        assertTrue(huge.all().contains("exit.plumb:1:11: error: the number 1e999 is beyond the range"), huge.all());
+        assertEquals(2, huge.status());
+        Run tiny = check("param b = 1e-999\n");
+        assertTrue(tiny.all().contains("exit.plumb:1:11: error: the number 1e-999 is too small"), tiny.all());
+        assertEquals(2, tiny.status());
+        Run overflow = check("param M = 1e308 [Mearth]\n");
+        assertTrue(overflow.all().contains("exit.plumb:1:11: error: the value of parameter 'M' is not a finite number"), overflow.all());
+        assertEquals(2, overflow.status());
+        Run clash = check("param r > 0\ncoord r [m] from 0 to 1 [m]\n");
+        assertTrue(clash.all().contains("exit.plumb:2:7: error: 'r' is declared twice"), clash.all());
+        assertEquals(2, clash.status(), "no internal error: " + clash.all());
+    }
+
+    @Test
     void aFileWithNothingToCheckIsTwo() throws IOException {
         status(2, "");
         status(2, "# only a comment\n\n");
