@@ -64,7 +64,28 @@ public final class Parser {
 
     // ---- statements -------------------------------------------------------------------------
 
+    /**
+     * Bounds on one statement's expressions, so that no later tree walk can run out of stack: a
+     * derivation line never needs more, and past them the message says how to split the line.
+     */
+    private static final int MAX_OPERATIONS = 1000, MAX_NESTING = 100;
+    private int operations, nesting;
+
+    private void operation(Token at) {
+        if (++operations > MAX_OPERATIONS) {
+            throw error(at, "this statement has more than " + MAX_OPERATIONS + " operations; split it with 'let' definitions");
+        }
+    }
+
+    private void open(Token at) {
+        if (++nesting > MAX_NESTING) {
+            throw error(at, "parentheses and calls nest more than " + MAX_NESTING + " deep here; split the expression with 'let' definitions");
+        }
+    }
+
     private Stmt statement() {
+        operations = 0;
+        nesting = 0;
         Token keyword = peek();
         if (keyword.is(TokenType.ERROR)) throw new ParseError();
         if (!keyword.is(TokenType.IDENT) || !STATEMENTS.contains(keyword.text())) {
@@ -346,6 +367,7 @@ public final class Parser {
         Expr left = term();
         while (check(TokenType.PLUS) || check(TokenType.MINUS)) {
             Token op = advance();
+            operation(op);
             Expr right = term();
             left = new Expr.Binary(op.is(TokenType.PLUS) ? BinaryOp.ADD : BinaryOp.SUB, left, right, left.span().to(right.span()));
         }
@@ -359,6 +381,7 @@ public final class Parser {
         Expr left = unary();
         while (check(TokenType.STAR) || check(TokenType.SLASH)) {
             Token op = advance();
+            operation(op);
             Expr right = unary();
             left = new Expr.Binary(op.is(TokenType.STAR) ? BinaryOp.MUL : BinaryOp.DIV, left, right, left.span().to(right.span()));
         }
@@ -368,17 +391,27 @@ public final class Parser {
     private Expr unary() {
         if (check(TokenType.MINUS)) {
             Token minus = advance();
+            operation(minus);
+            open(minus);
             Expr operand = unary();
+            nesting--;
             return new Expr.Neg(operand, minus.span().to(operand.span()));
         }
-        if (match(TokenType.PLUS)) return unary();
+        if (check(TokenType.PLUS)) {
+            operation(advance());
+            return unary();
+        }
         return power();
     }
 
     private Expr power() {
         Expr base = primary();
-        if (match(TokenType.CARET)) {
+        if (check(TokenType.CARET)) {
+            Token caret = advance();
+            operation(caret);
+            open(caret);
             Expr exponent = unary();
+            nesting--;
             return new Expr.Binary(BinaryOp.POW, base, exponent, base.span().to(exponent.span()));
         }
         return base;
@@ -418,7 +451,9 @@ public final class Parser {
         }
         if (t.is(TokenType.LPAREN)) {
             advance();
+            open(t);
             Expr inner = expression();
+            nesting--;
             consume(TokenType.RPAREN, "expected ')' to close the '(' at column " + t.span().column());
             return inner;
         }
@@ -430,6 +465,7 @@ public final class Parser {
     }
 
     private Expr call(Token callee, int order) {
+        open(callee);
         consume(TokenType.LPAREN, "expected '('");
         List<Expr> args = new ArrayList<>();
         if (!check(TokenType.RPAREN)) {
@@ -438,6 +474,7 @@ public final class Parser {
             } while (match(TokenType.COMMA));
         }
         Token close = consume(TokenType.RPAREN, "expected ')' or ',' in the call of '" + callee.text() + "'");
+        nesting--;
         return new Expr.Call(callee.text(), callee.span(), order, args, callee.span().to(close.span()));
     }
 

@@ -82,6 +82,18 @@ class ExitStatusTest {
     }
 
     @Test
+    void deepAndWideExpressionsAreLocatedErrorsNotCrashes() throws IOException {
+        Run deep = check("param x > 0\nclaim c: " + "(".repeat(1500) + "x" + ")".repeat(1500) + " = x\n");
+        assertTrue(deep.all().contains("exit.plumb:2:") && deep.all().contains("nest more than 100 deep"), deep.all().substring(0, 300));
+        assertEquals(2, deep.status());
+        Run wide = check("param x > 0\nclaim c: x" + " + x".repeat(3000) + " = 3001*x\n");
+        assertTrue(wide.all().contains("more than 1000 operations"), wide.all().substring(0, 300));
+        assertEquals(2, wide.status());
+        Run signs = check("param x > 0\nclaim c: " + "-".repeat(5000) + "x = x\n");
+        assertEquals(2, signs.status());
+    }
+
+    @Test
     void aFileWithNothingToCheckIsTwo() throws IOException {
         status(2, "");
         status(2, "# only a comment\n\n");
