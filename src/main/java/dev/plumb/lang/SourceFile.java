@@ -2,8 +2,17 @@ package dev.plumb.lang;
 
 import java.util.List;
 
-/** The text of one input file, kept whole so diagnostics can quote the offending line. */
+/**
+ * The text of one input file, kept whole so diagnostics can quote the offending line. A byte-order
+ * mark at the start is dropped and every line ending (CR LF, or a lone CR from an old editor) is
+ * read as LF, so lines and columns are where an editor shows them.
+ */
 public record SourceFile(String path, String text) {
+
+    public SourceFile {
+        if (text.startsWith("\uFEFF")) text = text.substring(1);
+        if (text.indexOf('\r') >= 0) text = text.replace("\r\n", "\n").replace('\r', '\n');
+    }
 
     public List<String> lines() {
         return text.lines().toList();

@@ -25,9 +25,9 @@ public final class DiagnosticPrinter {
             case WARNING -> style.yellow("warning");
             case NOTE -> style.cyan("note");
         };
-        out.append(style.bold(where)).append(": ").append(severity).append(": ").append(d.message()).append('\n');
+        out.append(style.bold(where)).append(": ").append(severity).append(": ").append(Style.inert(d.message())).append('\n');
         if (s.line() > 0) {
-            String line = source.line(s.line()).replace('\t', ' ');
+            String line = Style.inertLine(source.line(s.line()));
             out.append("    ").append(line).append('\n');
             int start = Math.max(1, s.column());
             int end = s.endLine() == s.line() ? Math.max(start + 1, s.endColumn()) : line.length() + 1;
@@ -37,7 +37,7 @@ public final class DiagnosticPrinter {
                     .append(d.severity() == Severity.ERROR ? style.red(carets) : style.cyan(carets)).append('\n');
         }
         for (String detail : d.details()) {
-            out.append("  ").append(detail).append('\n');
+            out.append("  ").append(Style.inert(detail)).append('\n');
         }
         return out.toString();
     }

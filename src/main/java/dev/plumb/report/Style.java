@@ -17,6 +17,35 @@ public record Style(boolean color) {
         return color ? "\u001b[" + code + "m" + s + "\u001b[0m" : s;
     }
 
+    /**
+     * Text from the input made inert for a terminal: control characters (an escape sequence in a title
+     * could recolour or rewrite what the run appears to say) are shown as \\uXXXX.
+     */
+    public static String inert(String s) {
+        if (s == null) return "";
+        StringBuilder out = null;
+        for (int i = 0; i < s.length(); i++) {
+            char c = s.charAt(i);
+            boolean control = c < 0x20 && c != '\n' && c != '\t' || c >= 0x7f && c <= 0x9f;
+            if (control && out == null) out = new StringBuilder(s.substring(0, i));
+            if (out != null) {
+                if (control) out.append(String.format("\\u%04x", (int) c));
+                else out.append(c);
+            }
+        }
+        return out == null ? s : out.toString();
+    }
+
+    /** A quoted source line made inert with its columns kept: each control character becomes '?'. */
+    public static String inertLine(String s) {
+        StringBuilder out = new StringBuilder(s.length());
+        for (int i = 0; i < s.length(); i++) {
+            char c = s.charAt(i);
+            out.append(c == '\t' ? ' ' : c < 0x20 || c >= 0x7f && c <= 0x9f ? '?' : c);
+        }
+        return out.toString();
+    }
+
     public String bold(String s) {
         return wrap("1", s);
     }

@@ -18,7 +18,7 @@ public final class TextReport {
         DiagnosticPrinter printer = new DiagnosticPrinter(style);
         for (Diagnostic d : a.diagnostics()) out.append(printer.print(a.source(), d));
         if (!a.diagnostics().isEmpty()) out.append('\n');
-        String title = a.model() != null ? a.model().title() : "";
+        String title = Style.inert(a.model() != null ? a.model().title() : "");
         out.append(style.bold(a.source().path())).append(title.isEmpty() || title.equals(a.source().path()) ? "" : "  " + title)
                 .append('\n');
         if (a.hasInputErrors()) {
@@ -26,8 +26,8 @@ public final class TextReport {
             return out.toString();
         }
         for (Check c : a.checks()) {
-            out.append(String.format(Locale.ROOT, "  %-9s %-22s %s  %s%n", c.kind(), c.label(), status(c.status()),
-                    c.message() + (c.factor() != null && !c.message().contains("factor") ? " (factor " + c.factor() + ")" : "")));
+            out.append(String.format(Locale.ROOT, "  %-9s %-22s %s  %s%n", c.kind(), Style.inert(c.label()), status(c.status()),
+                    Style.inert(c.message()) + (c.factor() != null && !c.message().contains("factor") ? " (factor " + c.factor() + ")" : "")));
         }
         if (!a.derived().isEmpty()) {
             out.append("\n  closed forms\n");
@@ -69,7 +69,7 @@ public final class TextReport {
             }
         }
         for (String scale : a.scales()) out.append("  ").append(scale).append('\n');
-        for (String note : a.notes()) out.append("  note: ").append(note).append('\n');
+        for (String note : a.notes()) out.append("  note: ").append(Style.inert(note)).append('\n');
         out.append('\n').append(summary(a, strict)).append('\n');
         return out.toString();
     }

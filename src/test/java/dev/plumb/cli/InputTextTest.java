@@ -1,0 +1,48 @@
+package dev.plumb.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+
+/** Text as editors save it: a byte-order mark, old Mac line endings, and control characters kept inert. */
+class InputTextTest {
+
+    private static Run check(byte[] content) throws IOException {
+        Path dir = Files.createTempDirectory("plumb-text");
+        Path file = dir.resolve("text.plumb");
+        Files.write(file, content);
+        try {
+            return Run.of("check", "--no-color", file.toString());
+        } finally {
+            Files.deleteIfExists(file);
+            Files.deleteIfExists(dir);
+        }
+    }
+
+    @Test
+    void aByteOrderMarkIsAccepted() throws IOException {
+        Run run = check(("\uFEFFparam M [kg] > 0\nclaim c: M = M\n").getBytes(StandardCharsets.UTF_8));
+        assertEquals(0, run.status(), run.all());
+    }
+
+    @Test
+    void carriageReturnLineEndingsAreLocatedOnTheirOwnLines() throws IOException {
+        Run run = check("param M [kg] > 0\rclaim c: M = N\r".getBytes(StandardCharsets.UTF_8));
+        assertTrue(run.all().contains("text.plumb:2:14: error: 'N' is not defined"), run.all());
+        Run crlf = check("param M [kg] > 0\r\nclaim c: M = N\r\n".getBytes(StandardCharsets.UTF_8));
+        assertTrue(crlf.all().contains("text.plumb:2:14: error: 'N' is not defined"), crlf.all());
+    }
+
+    @Test
+    void escapeSequencesFromTheFileNeverReachTheTerminal() throws IOException {
+        Run run = check("title \"\u001b[31mALL HOLD\u001b[0m\"\nparam M [kg] > 0\nclaim c: M = N\n".getBytes(StandardCharsets.UTF_8));
+        assertFalse(run.all().contains("\u001b"), run.all());
+        assertTrue(run.all().contains("\\u001b[31mALL HOLD"), run.all());
+    }
+}
