@@ -16,6 +16,9 @@ public final class DiagnosticPrinter {
         this.style = style;
     }
 
+    /** How many characters either side of the column a long line is quoted with. */
+    private static final int WINDOW = 80;
+
     public String print(SourceFile source, Diagnostic d) {
         StringBuilder out = new StringBuilder();
         Span s = d.span();
@@ -28,9 +31,18 @@ public final class DiagnosticPrinter {
         out.append(style.bold(where)).append(": ").append(severity).append(": ").append(Style.inert(d.message())).append('\n');
         if (s.line() > 0) {
             String line = Style.inertLine(source.line(s.line()));
-            out.append("    ").append(line).append('\n');
             int start = Math.max(1, s.column());
-            int end = s.endLine() == s.line() ? Math.max(start + 1, s.endColumn()) : line.length() + 1;
+            // A very long line is quoted in a window around the column, not whole.
+            int shift = 0;
+            if (line.length() > WINDOW * 2) {
+                int from = Math.max(0, start - 1 - WINDOW), to = Math.min(line.length(), start - 1 + WINDOW);
+                String head = from > 0 ? "..." : "";
+                line = head + line.substring(from, to) + (to < line.length() ? "..." : "");
+                shift = from - head.length();
+                start -= shift;
+            }
+            out.append("    ").append(line).append('\n');
+            int end = s.endLine() == s.line() ? Math.max(start + 1, s.endColumn() - shift) : line.length() + 1;
             end = Math.min(end, Math.max(start + 1, line.length() + 1));
             String carets = "^".repeat(end - start);
             out.append("    ").append(" ".repeat(start - 1))

@@ -13,10 +13,21 @@ public final class TextReport {
         this.style = style;
     }
 
+    /** Past this many, the diagnostics of a file are counted rather than printed. */
+    static final int MAX_DIAGNOSTICS = 50;
+
     public String render(Analysis a, boolean strict) {
         StringBuilder out = new StringBuilder();
         DiagnosticPrinter printer = new DiagnosticPrinter(style);
-        for (Diagnostic d : a.diagnostics()) out.append(printer.print(a.source(), d));
+        int shown = 0;
+        for (Diagnostic d : a.diagnostics()) {
+            if (shown++ == MAX_DIAGNOSTICS) {
+                out.append("... and ").append(a.diagnostics().size() - MAX_DIAGNOSTICS)
+                        .append(" more diagnostics not shown (all of them are in --format json)\n");
+                break;
+            }
+            out.append(printer.print(a.source(), d));
+        }
         if (!a.diagnostics().isEmpty()) out.append('\n');
         String title = Style.inert(a.model() != null ? a.model().title() : "");
         out.append(style.bold(a.source().path())).append(title.isEmpty() || title.equals(a.source().path()) ? "" : "  " + title)

@@ -40,6 +40,23 @@ class InputTextTest {
     }
 
     @Test
+    void aLongLineIsQuotedInAWindowAroundTheColumn() throws IOException {
+        Run run = check(("param x > 0\nclaim c: " + "x + ".repeat(250) + "y = x\n").getBytes(StandardCharsets.UTF_8));
+        String quoted = run.all().lines().filter(l -> l.startsWith("    ...")).findFirst().orElseThrow(() -> new AssertionError(run.all()));
+        assertTrue(quoted.length() < 200, quoted);
+        assertTrue(quoted.contains("y = x"), quoted);
+        String carets = run.all().lines().filter(l -> l.trim().equals("^")).findFirst().orElseThrow();
+        assertEquals('y', quoted.charAt(carets.indexOf('^')), "the caret stands under the unknown name");
+    }
+
+    @Test
+    void aFloodOfErrorsIsCounted() throws IOException {
+        Run run = check("bogus line\n".repeat(500).getBytes(StandardCharsets.UTF_8));
+        assertTrue(run.all().contains("... and 450 more diagnostics not shown"), run.all().substring(0, 200));
+        assertEquals(2, run.status());
+    }
+
+    @Test
     void escapeSequencesFromTheFileNeverReachTheTerminal() throws IOException {
         Run run = check("title \"\u001b[31mALL HOLD\u001b[0m\"\nparam M [kg] > 0\nclaim c: M = N\n".getBytes(StandardCharsets.UTF_8));
         assertFalse(run.all().contains("\u001b"), run.all());
