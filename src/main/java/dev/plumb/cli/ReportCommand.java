@@ -115,22 +115,34 @@ public final class ReportCommand implements Callable<Integer> {
         return dot > 0 ? name.substring(0, dot) : name;
     }
 
-    /** Writes every file next to its target first, then moves it into place, so a failure leaves old files whole. */
+    /**
+     * Writes every file of the set next to its target first, then moves them all into place, so a
+     * failure while writing leaves the old set whole and the switch from old to new is as short as it
+     * can be. Temporary files are created the ordinary way (their mode follows the umask, not 0600),
+     * removed on every path that can run, and any left by a run that was killed are removed first.
+     */
     private static void write(Path dir, Map<String, byte[]> files) throws IOException {
         Files.createDirectories(dir);
-        for (Map.Entry<String, byte[]> f : files.entrySet()) {
-            Path target = dir.resolve(f.getKey());
-            Path tmp = Files.createTempFile(dir, ".plumb-", ".tmp");
-            try {
-                Files.write(tmp, f.getValue());
-                try {
-                    Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-                } catch (AtomicMoveNotSupportedException e) {
-                    Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-                }
-            } finally {
-                Files.deleteIfExists(tmp);
+        try (var old = Files.newDirectoryStream(dir, ".plumb-*.tmp")) {
+            for (Path leftover : old) Files.deleteIfExists(leftover);
+        }
+        Map<Path, Path> ready = new LinkedHashMap<>();
+        String run = Long.toHexString(System.nanoTime());
+        try {
+            for (Map.Entry<String, byte[]> f : files.entrySet()) {
+                Path tmp = dir.resolve(".plumb-" + run + "-" + ready.size() + ".tmp");
+                ready.put(tmp, dir.resolve(f.getKey()));
+                Files.write(tmp, f.getValue(), java.nio.file.StandardOpenOption.CREATE_NEW, java.nio.file.StandardOpenOption.WRITE);
             }
+            for (Map.Entry<Path, Path> r : ready.entrySet()) {
+                try {
+                    Files.move(r.getKey(), r.getValue(), StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+                } catch (AtomicMoveNotSupportedException e) {
+                    Files.move(r.getKey(), r.getValue(), StandardCopyOption.REPLACE_EXISTING);
+                }
+            }
+        } finally {
+            for (Path tmp : ready.keySet()) Files.deleteIfExists(tmp);
         }
     }
 }

@@ -60,6 +60,16 @@ class ReportTest {
     }
 
     @Test
+    void temporaryFilesOfAKilledRunAreRemovedAndNoneAreLeft(@TempDir Path out) throws Exception {
+        Files.writeString(out.resolve(".plumb-killed.tmp"), "half a report");
+        run("report", "derivations/uniform-sphere.plumb", "--format", "md,json", "--out", out.toString());
+        try (var left = Files.newDirectoryStream(out, "*.tmp")) {
+            assertFalse(left.iterator().hasNext(), "temporary files left in " + out);
+        }
+        assertTrue(Files.exists(out.resolve("uniform-sphere.md")));
+    }
+
+    @Test
     void theInputFileIsNeverOverwritten(@TempDir Path dir) throws Exception {
         // A derivation saved as x.md, reported as Markdown into its own folder, would be replaced by x.md.
         Path input = dir.resolve("x.md");
