@@ -454,6 +454,13 @@ public final class Parser {
             open(t);
             Expr inner = expression();
             nesting--;
+            Token next = peek();
+            if (!next.is(TokenType.RPAREN) && next.span().line() > t.span().line() && next.span().column() == 1
+                    && next.is(TokenType.IDENT) && STATEMENTS.contains(next.text())) {
+                // The line went on inside the open '(' and ran into the next statement: the mistake is the '('.
+                throw error(t, "this '(' is never closed: the statement runs on to the next one, '" + next.text() + "' on line "
+                        + next.span().line());
+            }
             consume(TokenType.RPAREN, "expected ')' to close the '(' at column " + t.span().column());
             return inner;
         }

@@ -47,6 +47,13 @@ class ParseErrorTest {
     }
 
     @Test
+    void anUnclosedParenthesisIsReportedWhereItOpened() {
+        Diagnostic d = onlyError("param M [kg] > 0\nclaim c: (M + 1 [kg]\nclaim d: M = M\n");
+        assertAt(d, 2, 10);
+        assertTrue(d.message().contains("this '(' is never closed"), d.message());
+    }
+
+    @Test
     void aConstraintAfterACommaMustBeAComparison() {
         // 'param Rc [m] > 0, < R' orders parameters; after the comma a comparison must follow.
         Diagnostic d = onlyError("param M [kg] > 0, 3");
