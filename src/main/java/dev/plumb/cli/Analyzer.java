@@ -65,6 +65,16 @@ public final class Analyzer {
         return analyze(new SourceFile(path.toString(), text));
     }
 
+    /** Analyses text given as bytes (standard input, for {@code check -}), named {@code name} in messages. */
+    public Analysis analyze(String name, byte[] bytes) {
+        try {
+            String text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+            return analyze(new SourceFile(name, text));
+        } catch (java.nio.charset.CharacterCodingException e) {
+            return unreadable(Path.of(name), "the input is not UTF-8 text");
+        }
+    }
+
     public Analysis analyze(SourceFile source) {
         Diagnostics diagnostics = new Diagnostics();
         Program program = Parser.parse(source, diagnostics);

@@ -23,7 +23,7 @@ public final class CheckCommand implements Callable<Integer> {
 
     enum Format { text, json }
 
-    @Parameters(arity = "1..*", paramLabel = "FILE", description = "plumb files to check")
+    @Parameters(arity = "1..*", paramLabel = "FILE", description = "plumb files to check ('-' reads standard input)")
     List<Path> files;
 
     @Option(names = "--format", description = "output format: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE})",
@@ -46,7 +46,19 @@ public final class CheckCommand implements Callable<Integer> {
         List<Analysis> results = new ArrayList<>();
         int status = 0;
         for (Path f : files) {
-            Analysis a = analyzer.analyze(f);
+            Analysis a;
+            if (f.toString().equals("-")) {
+                // 'check -' reads the derivation from standard input, named <stdin> in messages.
+                byte[] bytes;
+                try {
+                    bytes = System.in.readAllBytes();
+                } catch (java.io.IOException e) {
+                    bytes = new byte[0];
+                }
+                a = analyzer.analyze("<stdin>", bytes);
+            } else {
+                a = analyzer.analyze(f);
+            }
             results.add(a);
             status = Math.max(status, a.exitStatus(analysis.strict));
             if (format == Format.text) {

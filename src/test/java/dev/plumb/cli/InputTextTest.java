@@ -26,6 +26,19 @@ class InputTextTest {
     }
 
     @Test
+    void aDashReadsStandardInput() {
+        java.io.InputStream saved = System.in;
+        try {
+            System.setIn(new java.io.ByteArrayInputStream("param M [kg] > 0\nclaim c: M = N\n".getBytes(StandardCharsets.UTF_8)));
+            Run run = Run.of("check", "--no-color", "-");
+            assertTrue(run.all().contains("<stdin>:2:14: error: 'N' is not defined"), run.all());
+            assertEquals(2, run.status());
+        } finally {
+            System.setIn(saved);
+        }
+    }
+
+    @Test
     void aByteOrderMarkIsAccepted() throws IOException {
         Run run = check(("\uFEFFparam M [kg] > 0\nclaim c: M = M\n").getBytes(StandardCharsets.UTF_8));
         assertEquals(0, run.status(), run.all());
