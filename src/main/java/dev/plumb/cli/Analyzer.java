@@ -145,34 +145,16 @@ public final class Analyzer {
     }
 
     /**
-     * Names the route of every decided claim and step, and gives each one the symbolic side left
-     * undecided to the numeric identity test over the parameter domain, which decides it when the
-     * relations solve there.
+     * Gives each claim and step the symbolic side left undecided to the numeric identity test over the
+     * parameter domain, which decides it when the relations solve there.
      */
     private static void decideByNumbers(Model model, List<Check> checks, Map<String, Expr> closedForms) {
-        java.util.Iterator<Stmt.Claim> claims = model.claims().iterator();
-        java.util.Iterator<Stmt.Step> steps = model.steps().iterator();
         Map<Span, Stmt.Equation> equations = new java.util.HashMap<>();
-        while (claims.hasNext()) {
-            Stmt.Claim c = claims.next();
-            equations.put(c.span(), c.equation());
-        }
-        while (steps.hasNext()) {
-            Stmt.Step st = steps.next();
-            equations.put(st.span(), st.equation());
-        }
+        for (Stmt.Claim c : model.claims()) equations.put(c.span(), c.equation());
+        for (Stmt.Step s : model.steps()) equations.put(s.span(), s.equation());
         for (int i = 0; i < checks.size(); i++) {
             Check c = checks.get(i);
-            if (!c.kind().equals("claim") && !c.kind().equals("step")) continue;
-            if (c.status() != Status.UNDECIDED) {
-                if (!c.extra().containsKey("route")) {
-                    // A profile put into the relations and boundaries is checked by substitution; the rest by proof.
-                    String m = c.message();
-                    boolean substituted = m.startsWith("meets ") || !m.contains("follows from") && m.contains(" is not met");
-                    checks.set(i, c.with("route", substituted ? "substitution" : "symbolic"));
-                }
-                continue;
-            }
+            if (!c.kind().equals("claim") && !c.kind().equals("step") || c.status() != Status.UNDECIDED) continue;
             Stmt.Equation eq = equations.get(c.span());
             if (eq == null) continue;
             Check decided = dev.plumb.numeric.NumericIdentity.decide(model, c.kind(), c.label(), eq, c.span(), closedForms);

@@ -9,7 +9,7 @@ import java.util.Map;
  */
 public record CaseValues(String label, Span span, Map<String, Double> values, Map<String, Double> uncertainties) {
     public CaseValues {
-        values = Map.copyOf(values);
-        uncertainties = Map.copyOf(uncertainties);
+        values = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(values));
+        uncertainties = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(uncertainties));
     }
 }

@@ -14,7 +14,8 @@ public record Check(String kind, String label, Span span, Status status, String 
                     Map<String, Object> extra) {
 
     public Check {
-        extra = Map.copyOf(new LinkedHashMap<>(extra));
+        // In insertion order, so the JSON's keys come out the same on every run (Map.copyOf's order varies).
+        extra = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(extra));
     }
 
     public static Check of(String kind, String label, Span span, Status status, String message) {

@@ -42,7 +42,7 @@ final class IntervalPoints {
         Set<Expr.Call> reported = new HashSet<>();
         for (Stmt s : statements) {
             List<Expr.Call> calls = new ArrayList<>();
-            for (Expr e : requested(s)) points.collect(e, calls, new HashSet<>());
+            for (Expr e : requested(s)) points.collect(e, calls);
             for (Expr.Call call : calls) {
                 for (CaseValues c : all) {
                     if (reported.contains(call)) break;
@@ -64,25 +64,14 @@ final class IntervalPoints {
     }
 
     /** Calls of a profile, or of a definition that reads a profile, whose argument does not name the coordinate. */
-    private void collect(Expr e, List<Expr.Call> into, Set<String> visiting) {
-        if (e instanceof Expr.Call c) {
-            Symbol s = symbols.get(c.callee());
-            boolean point = c.args().size() == 1 && !References.names(c.args().get(0)).contains(coord.name())
-                    && (s instanceof Symbol.Profile || s instanceof Symbol.Definition d && !d.params().isEmpty()
-                    && readsProfile(d.body(), new HashSet<>()));
-            if (point) into.add(c);
-            c.args().forEach(a -> collect(a, into, visiting));
-        } else if (e instanceof Expr.Neg n) {
-            collect(n.operand(), into, visiting);
-        } else if (e instanceof Expr.Binary b) {
-            collect(b.left(), into, visiting);
-            collect(b.right(), into, visiting);
-        } else if (e instanceof Expr.If i) {
-            collect(i.condition().left(), into, visiting);
-            collect(i.condition().right(), into, visiting);
-            collect(i.then(), into, visiting);
-            collect(i.otherwise(), into, visiting);
-        }
+    private void collect(Expr e, List<Expr.Call> into) {
+        References.walk(e, x -> {
+            if (x instanceof Expr.Call c && c.args().size() == 1 && !References.names(c.args().get(0)).contains(coord.name())
+                    && (symbols.get(c.callee()) instanceof Symbol.Profile || symbols.get(c.callee()) instanceof Symbol.Definition d
+                    && !d.params().isEmpty() && readsProfile(d.body(), new HashSet<>()))) {
+                into.add(c);
+            }
+        });
     }
 
     private static String number(double v) {

@@ -287,7 +287,7 @@ public final class NumericEngine {
     }
 
     /** Whether {@code e} names the coordinate freely (not only inside a definition's own parameters). */
-    private static boolean dependsOnCoordinate(Model model, Expr e, java.util.Set<String> visiting) {
+    static boolean dependsOnCoordinate(Model model, Expr e, java.util.Set<String> visiting) {
         if (model.coordinate().isEmpty()) return false;
         String x = model.coordinate().get().name();
         for (String name : dev.plumb.model.References.names(e)) {

@@ -43,8 +43,8 @@ public final class NumericIdentity {
     public static Check decide(Model model, String kind, String label, Stmt.Equation eq, Span span, Map<String, Expr> closedForms) {
         List<Map<String, Double>> points = points(model, label);
         if (points.isEmpty()) return null;
-        String x = model.coordinate().map(Symbol::name).orElse(null);
-        boolean alongProfile = x != null && (mentions(model, eq.lhs(), x) || mentions(model, eq.rhs(), x));
+        boolean alongProfile = NumericEngine.dependsOnCoordinate(model, eq.lhs(), new java.util.HashSet<>())
+                || NumericEngine.dependsOnCoordinate(model, eq.rhs(), new java.util.HashSet<>());
         List<double[]> pairs = new ArrayList<>();
         double worst = 0;
         int solved = 0;
@@ -189,14 +189,6 @@ public final class NumericIdentity {
         List<Map<String, Double>> out = new ArrayList<>();
         for (int i = 1; i <= ALONG; i++) out.add(Map.of(coord.name(), a + (b - a) * (i - 0.5) / ALONG));
         return out;
-    }
-
-    private static boolean mentions(Model model, Expr e, String x) {
-        for (String name : dev.plumb.model.References.names(e)) {
-            if (name.equals(x)) return true;
-            if (model.symbols().get(name) instanceof Symbol.Definition d && d.params().isEmpty() && mentions(model, d.body(), x)) return true;
-        }
-        return false;
     }
 
     /** The expression with the coordinate replaced by a number. */

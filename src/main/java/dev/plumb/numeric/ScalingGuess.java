@@ -74,32 +74,21 @@ final class ScalingGuess {
         }
 
         void visit(Expr e) {
-            if (e instanceof Expr.Quantity q) {
-                Dimension d = model.dimensionOf(q);
-                try {
-                    add(q.text() + " [" + q.unit() + "]", constants.evaluate(q), d);
-                } catch (ConstantEvaluator.NotConstant ignored) {
-                    // A unit the catalogue does not know was reported by the unit check.
-                }
-            } else if (e instanceof Expr.Name n) {
-                name(n.id());
-            } else if (e instanceof Expr.Call call) {
-                if (model.symbols().get(call.callee()) instanceof Symbol.Definition d && visiting.add(d.name())) {
+            dev.plumb.model.References.walk(e, x -> {
+                if (x instanceof Expr.Quantity q) {
+                    try {
+                        add(q.text() + " [" + q.unit() + "]", constants.evaluate(q), model.dimensionOf(q));
+                    } catch (ConstantEvaluator.NotConstant ignored) {
+                        // A unit the catalogue does not know was reported by the unit check.
+                    }
+                } else if (x instanceof Expr.Name n) {
+                    name(n.id());
+                } else if (x instanceof Expr.Call call && model.symbols().get(call.callee()) instanceof Symbol.Definition d
+                        && visiting.add(d.name())) {
                     visit(d.body());
                     visiting.remove(d.name());
                 }
-                call.args().forEach(this::visit);
-            } else if (e instanceof Expr.Neg n) {
-                visit(n.operand());
-            } else if (e instanceof Expr.Binary b) {
-                visit(b.left());
-                visit(b.right());
-            } else if (e instanceof Expr.If i) {
-                visit(i.condition().left());
-                visit(i.condition().right());
-                visit(i.then());
-                visit(i.otherwise());
-            }
+            });
         }
 
         private void name(String id) {

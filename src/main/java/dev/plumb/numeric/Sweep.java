@@ -63,24 +63,17 @@ public final class Sweep {
      */
     private static double solveOne(Model model, Map<String, Double> point, Expr quantity, NumericOptions options,
                                    Continuation near) {
-        double[] start = near.predict(point);
-        if (start != null) {
+        double[] predicted = near.predict(point);
+        for (double[] start : predicted == null ? new double[][]{null} : new double[][]{predicted, null}) {
             try {
                 Solution s = NumericEngine.solve(model, point, options, Map.of(), start);
                 double v = s.evaluate(quantity);
                 near.record(point, s);
                 return v;
-            } catch (SolveException fromNeighbour) {
-                // Fall through to a solve from the guesses.
+            } catch (SolveException failed) {
+                // From the prediction: try again from the guesses; from the guesses: the point is not solved.
             }
         }
-        try {
-            Solution s = NumericEngine.solve(model, point, options, Map.of(), null);
-            double v = s.evaluate(quantity);
-            near.record(point, s);
-            return v;
-        } catch (SolveException failed) {
-            return Double.NaN;
-        }
+        return Double.NaN;
     }
 }

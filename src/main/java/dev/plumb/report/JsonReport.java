@@ -51,7 +51,12 @@ public final class JsonReport {
             m.put("closed_form", d.closedForm());
             m.put("unit", d.unit());
             List<Object> trail = new ArrayList<>();
-            for (Analysis.TrailEntry t : d.trail()) trail.add(Map.of("action", t.action(), "result", t.result()));
+            for (Analysis.TrailEntry t : d.trail()) {
+                Map<String, Object> step = new LinkedHashMap<>();
+                step.put("action", t.action());
+                step.put("result", t.result());
+                trail.add(step);
+            }
             if (!trail.isEmpty()) m.put("trail", trail);
             derived.add(m);
         }

@@ -61,7 +61,7 @@ public record DimensionalAnalysis(Map<String, Dimension> inputs, int rank, Optio
             for (int i = 0; i < rank; i++) v[pivotCol[i]] = m[i][free].neg();
             groups.add(integral(names, v));
         }
-        return new DimensionalAnalysis(Map.copyOf(inputs), rank, exponents, consistent && groups.isEmpty(), List.copyOf(groups));
+        return new DimensionalAnalysis(java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(inputs)), rank, exponents, consistent && groups.isEmpty(), List.copyOf(groups));
     }
 
     /** Reduced row echelon form in place; returns the rank and fills the pivot columns. */

@@ -19,8 +19,8 @@ public record SymbolicResult(List<Check> checks, List<Derived> derived, Map<Stri
     public SymbolicResult {
         checks = List.copyOf(checks);
         derived = List.copyOf(derived);
-        profiles = Map.copyOf(profiles);
-        constants = Map.copyOf(constants);
+        profiles = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(profiles));
+        constants = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(constants));
         // Passes over the relations can meet the same obstacle more than once; a reader needs it once.
         notes = notes.stream().distinct().toList();
     }

@@ -126,6 +126,7 @@ final class Symja {
         java.util.concurrent.Future<IExpr> job = w.pool.submit(() -> evaluator.eval(e));
         long budget = Math.round(seconds * 1e9), cpuStart = w.cpu(), wallStart = System.nanoTime();
         boolean stopped = false;
+        long stoppedAt = 0;
         while (true) {
             try {
                 IExpr result = job.get(10, java.util.concurrent.TimeUnit.MILLISECONDS);
@@ -174,7 +175,6 @@ final class Symja {
     private static final long GRACE_NANOS = 2_000_000_000L;
     private static final java.lang.management.ThreadMXBean THREADS = java.lang.management.ManagementFactory.getThreadMXBean();
 
-    private long stoppedAt;
     private Worker worker;
 
     /** The thread this session's evaluations run on. */
@@ -182,8 +182,8 @@ final class Symja {
         final java.util.concurrent.ExecutorService pool;
         volatile Thread thread;
 
+        /** The executor makes its one thread on the first submit, in the submitting thread: {@code thread} is set then. */
         Worker() {
-            java.util.concurrent.CountDownLatch started = new java.util.concurrent.CountDownLatch(1);
             pool = java.util.concurrent.Executors.newSingleThreadExecutor(r -> {
                 // Symja recurses deeply; a stack of its own keeps that off whatever the JVM's default is.
                 Thread t = new Thread(null, r, "plumb-symja", 256L << 20);
@@ -191,12 +191,6 @@ final class Symja {
                 thread = t;
                 return t;
             });
-            pool.submit(started::countDown);
-            try {
-                started.await();
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-            }
         }
 
         /** The worker's CPU time in nanoseconds (its wall time where the JVM cannot measure CPU time). */

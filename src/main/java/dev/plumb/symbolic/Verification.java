@@ -66,7 +66,7 @@ final class Verification {
             String msg = v.holds() ? "holds: " + v.message()
                     : v.status() == Status.FAILS && !derived.equals(ExprPrinter.print(c.equation().lhs()))
                     ? v.message() + "; the derived value is " + ExprPrinter.print(c.equation().lhs()) + " = " + derived : v.message();
-            return withFactor(Check.of("claim", label, c.span(), v.status(), msg), v.factor());
+            return routed(withFactor(Check.of("claim", label, c.span(), v.status(), msg), v.factor()), "symbolic");
         } catch (Translation.Untranslatable u) {
             return Check.of("claim", label, c.span(), Status.UNDECIDED, u.getMessage());
         } catch (Symja.Failure f) {
@@ -90,10 +90,10 @@ final class Verification {
         try {
             Check c = stepAgainstKnowledge(s, label);
             if (unitsFail) {
-                c = new Check("step", label, s.span(), Status.FAILS, "the two sides have different units; " + c.message(), c.factor(), Map.of());
+                c = new Check("step", label, s.span(), Status.FAILS, "the two sides have different units; " + c.message(), c.factor(), c.extra());
             }
             if (c.status() == Status.HOLDS) recordProfile(s);
-            return c;
+            return routed(c, "symbolic");
         } catch (Translation.Untranslatable u) {
             return Check.of("step", label, s.span(), Status.UNDECIDED, u.getMessage());
         } catch (Symja.Failure f) {
@@ -135,9 +135,12 @@ final class Verification {
             if (v.status() == Status.UNDECIDED) return Check.of("step", label, s.span(), Status.UNDECIDED, v.message());
             List<String> parts = new ArrayList<>();
             parts.add(v.message());
-            if (profile != null) parts.addAll(parts(profile, s));
+            List<String> substituted = profile != null ? parts(profile, s) : List.of();
+            parts.addAll(substituted);
             parts.add("from " + basis + ", " + ExprPrinter.print(s.equation().lhs()) + " = " + print(lhs));
-            return withFactor(Check.of("step", label, s.span(), Status.FAILS, String.join("; ", parts)), v.factor());
+            Check failed = withFactor(Check.of("step", label, s.span(), Status.FAILS, String.join("; ", parts)), v.factor());
+            // Where putting the stated profile into the relations and boundaries shows what is not met, that says how.
+            return substituted.stream().anyMatch(m -> m.contains("not met")) ? routed(failed, "substitution") : failed;
         }
         IExpr fromRelation = relationFor(s.equation().lhs(), known);
         if (fromRelation != null) {
@@ -149,7 +152,7 @@ final class Verification {
         if (profile != null) {
             List<String> failing = parts(profile, s);
             boolean ok = failing.stream().noneMatch(m -> m.contains("not met") || m.contains("undecided"));
-            return Check.of("step", label, s.span(), ok ? Status.HOLDS : Status.FAILS, String.join("; ", failing));
+            return routed(Check.of("step", label, s.span(), ok ? Status.HOLDS : Status.FAILS, String.join("; ", failing)), "substitution");
         }
         return Check.of("step", label, s.span(), Status.UNDECIDED, missing(t, lhs, rhs));
     }
@@ -201,6 +204,11 @@ final class Verification {
 
     private static boolean mentions(Stmt.Equation eq, String name) {
         return dev.plumb.model.References.names(eq.lhs()).contains(name) || dev.plumb.model.References.names(eq.rhs()).contains(name);
+    }
+
+    /** Names how a decided verdict was reached (JSON {@code route}), unless a more specific route already did. */
+    private static Check routed(Check c, String route) {
+        return c.status() == Status.UNDECIDED || c.extra().containsKey("route") ? c : c.with("route", route);
     }
 
     private static Check withFactor(Check c, String factor) {
