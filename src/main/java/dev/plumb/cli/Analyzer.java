@@ -38,10 +38,30 @@ import dev.plumb.scaling.ScalingChecker;
 /** Runs the stages in order on one file: text, syntax tree, checked model, verdicts, report data. */
 public final class Analyzer {
 
-    /** Options shared by every command that analyses files. */
-    public record Options(double symbolicTimeoutSeconds, boolean profiles) {
+    /**
+     * Options shared by every command that analyses files. {@code deadline} is the {@link System#nanoTime}
+     * by which the whole run must end ({@link Long#MAX_VALUE} for none): a stage not started by then is
+     * skipped and its checks are undecided, with a located failure saying so. With {@code debug} a stage
+     * that stops on a defect prints its stack trace to standard error.
+     */
+    public record Options(double symbolicTimeoutSeconds, boolean profiles, long deadline, double timeoutSeconds, boolean debug) {
+        public Options(double symbolicTimeoutSeconds, boolean profiles) {
+            this(symbolicTimeoutSeconds, profiles, Long.MAX_VALUE, 0, false);
+        }
+
         public static Options defaults() {
             return new Options(5.0, false);
+        }
+
+        boolean expired() {
+            return deadline != Long.MAX_VALUE && System.nanoTime() - deadline > 0;
+        }
+
+        /** The per-computation symbolic limit, shortened to the time the run has left. */
+        double symbolicSeconds() {
+            if (deadline == Long.MAX_VALUE) return symbolicTimeoutSeconds;
+            double left = (deadline - System.nanoTime()) / 1e9;
+            return Math.max(0.05, Math.min(symbolicTimeoutSeconds, left));
         }
     }
 
@@ -85,10 +105,11 @@ public final class Analyzer {
         List<String> scales = List.of();
         List<Analysis.CaseTable> tables = new ArrayList<>();
         List<dev.plumb.lang.Diagnostic> found = new ArrayList<>(model.diagnostics());
+        List<String> skipped = new ArrayList<>();
         if (!diagnostics.hasInputErrors()) {
             Map<String, Expr> closedForms = new LinkedHashMap<>();
-            SymbolicResult symbolic = guarded("symbolic", notes, () -> SymbolicEngine.analyze(model,
-                    new SymbolicOptions(options.symbolicTimeoutSeconds())));
+            SymbolicResult symbolic = guarded(skipped, "symbolic", notes, () -> SymbolicEngine.analyze(model,
+                    new SymbolicOptions(options.symbolicSeconds())));
             if (symbolic != null) {
                 checks.addAll(symbolic.checks());
                 notes.addAll(symbolic.notes());
@@ -98,32 +119,44 @@ public final class Analyzer {
                             d.trail().stream().map(t -> new Analysis.TrailEntry(t.action(), t.result())).toList()));
                 }
             } else {
-                undecided(model, checks, "the symbolic engine stopped on this file");
+                undecided(model, checks, options.expired() ? "not reached within the run's --timeout" : "the symbolic engine stopped on this file");
             }
             CaseAnalysis cases = new CaseAnalysis(model, closedForms, notes);
-            NumericResult numeric = guarded("numeric", notes, () -> NumericEngine.run(model, closedForms, NumericOptions.defaults()));
+            NumericResult numeric = guarded(skipped, "numeric", notes, () -> NumericEngine.run(model, closedForms, NumericOptions.defaults()));
             if (numeric != null) {
                 checks.addAll(numeric.checks());
                 notes.addAll(numeric.notes());
                 found.addAll(numeric.diagnostics());
                 for (CaseResult c : numeric.cases()) {
-                    Analysis.CaseTable t = guarded("case table", notes, () -> cases.table(c, options.profiles()));
+                    Analysis.CaseTable t = guarded(skipped, "case table", notes, () -> cases.table(c, options.profiles()));
                     if (t != null) tables.add(t);
                 }
             } else {
                 for (Stmt.Expect e : model.expects()) {
                     checks.add(Check.of("expect", label(e.label(), e.span()), e.span(), Status.UNDECIDED,
-                            "the numeric engine stopped on this file"));
+                            options.expired() ? "not reached within the run's --timeout" : "the numeric engine stopped on this file"));
                 }
             }
-            guarded("numeric identity", notes, () -> {
+            guarded(skipped, "numeric identity", notes, () -> {
                 decideByNumbers(model, checks, closedForms);
                 return null;
             });
-            List<Check> scaling = guarded("scaling", notes, () -> new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
-            if (scaling != null) checks.addAll(scaling);
-            List<String> lengths = guarded("scale lengths", notes, () -> ScaleLength.find(model).stream().map(ScaleLength::describe).toList());
+            List<Check> scaling = guarded(skipped, "scaling", notes, () -> new ScalingChecker(model, closedForms, cases::numericQuantity).checkAll());
+            if (scaling != null) {
+                checks.addAll(scaling);
+            } else {
+                for (Stmt.Scaling sc : model.scalings()) {
+                    checks.add(Check.of("scaling", label(sc.label(), sc.span()), sc.span(), Status.UNDECIDED,
+                            options.expired() ? "not reached within the run's --timeout" : "the scaling stage stopped on this file"));
+                }
+            }
+            List<String> lengths = guarded(skipped, "scale lengths", notes, () -> ScaleLength.find(model).stream().map(ScaleLength::describe).toList());
             if (lengths != null) scales = lengths;
+        }
+        if (!skipped.isEmpty()) {
+            found.add(dev.plumb.lang.Diagnostic.failure(Span.at(1, 1, 1), "the run reached its --timeout of "
+                    + Double.toString(options.timeoutSeconds()).replaceAll("\\.0$", "") + " s before the " + String.join(", ", skipped)
+                    + " stage" + (skipped.size() > 1 ? "s" : "") + " on this file; their checks are undecided", "give more time with --timeout SECONDS"));
         }
         found.sort(java.util.Comparator.comparingInt((dev.plumb.lang.Diagnostic d) -> d.span().line())
                 .thenComparingInt(d -> d.span().column()));
@@ -134,10 +167,17 @@ public final class Analyzer {
      * Runs one stage so that a defect inside it costs only that stage's verdicts: the run goes on,
      * and the note says which stage stopped and why (no stack trace reaches the user).
      */
-    private static <T> T guarded(String stage, List<String> notes, Supplier<T> work) {
+    private <T> T guarded(List<String> skipped, String stage, List<String> notes, Supplier<T> work) {
+        if (options.expired()) {
+            if (!skipped.contains(stage)) skipped.add(stage);
+            notes.add("the " + stage + " stage was not reached within the --timeout of "
+                    + Double.toString(options.timeoutSeconds()).replaceAll("\\.0$", "") + " s; its checks are undecided");
+            return null;
+        }
         try {
             return work.get();
         } catch (RuntimeException | StackOverflowError | OutOfMemoryError e) {
+            if (options.debug()) e.printStackTrace();
             notes.add("the " + stage + " stage stopped on this file (" + e.getClass().getSimpleName()
                     + (e.getMessage() == null ? "" : ": " + e.getMessage()) + "); its checks are undecided. Please report this.");
             return null;

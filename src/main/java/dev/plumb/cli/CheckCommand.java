@@ -42,27 +42,21 @@ public final class CheckCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
         Analyzer analyzer = analysis.analyzer(spec.commandLine(), false);
         List<Analysis> results = new ArrayList<>();
         int status = 0;
+        TextReport text = new TextReport(noColor ? Style.PLAIN : Style.detect());
         for (Path f : files) {
-            Analysis a;
-            if (f.toString().equals("-")) {
-                // 'check -' reads the derivation from standard input, named <stdin> in messages.
-                byte[] bytes;
-                try {
-                    bytes = System.in.readAllBytes();
-                } catch (java.io.IOException e) {
-                    bytes = new byte[0];
-                }
-                a = analyzer.analyze("<stdin>", bytes);
-            } else {
-                a = analyzer.analyze(f);
-            }
+            Analysis a = analysis.withinTimeout(() -> analyze(analyzer, f), f.toString(), err);
+            if (a == null) return 1;
             results.add(a);
             status = Math.max(status, a.exitStatus(analysis.strict));
             if (format == Format.text) {
-                out.print(new TextReport(noColor ? Style.PLAIN : Style.detect()).render(a, analysis.strict));
+                // Located messages go to standard error, verdicts and tables to standard output.
+                err.print(text.diagnostics(a));
+                err.flush();
+                out.print(text.results(a, analysis.strict));
                 out.flush();
             }
         }
@@ -73,5 +67,17 @@ public final class CheckCommand implements Callable<Integer> {
             out.flush();
         }
         return status;
+    }
+
+    private static Analysis analyze(Analyzer analyzer, Path f) {
+        if (!f.toString().equals("-")) return analyzer.analyze(f);
+        // 'check -' reads the derivation from standard input, named <stdin> in messages.
+        byte[] bytes;
+        try {
+            bytes = System.in.readAllBytes();
+        } catch (java.io.IOException e) {
+            bytes = new byte[0];
+        }
+        return analyzer.analyze("<stdin>", bytes);
     }
 }

@@ -22,7 +22,9 @@ public final class Main implements Runnable {
         CommandLine cli = new CommandLine(new Main());
         cli.setOut(out);
         cli.setErr(err);
+        boolean debug = java.util.Arrays.asList(args).contains("--debug");
         cli.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
+            if (debug) ex.printStackTrace(err);
             err.println("plumb: internal error: " + ex + " (please report this with the input file)");
             return 3;
         });
@@ -35,6 +37,7 @@ public final class Main implements Runnable {
             return cli.execute(args);
         } catch (RuntimeException | Error ex) {
             // picocli hands only Exceptions to the handler above; an Error would reach the user as a stack trace.
+            if (debug) ex.printStackTrace(err);
             err.println("plumb: internal error: " + ex + " (please report this with the input file)");
             return 3;
         }

@@ -55,7 +55,12 @@ public final class ReportCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter stdout = spec.commandLine().getOut();
-        Analysis a = analysis.analyzer(spec.commandLine(), true).analyze(file);
+        Analyzer analyzer = analysis.analyzer(spec.commandLine(), true);
+        Analysis a = analysis.withinTimeout(() -> analyzer.analyze(file), file.toString(), err);
+        if (a == null) {
+            err.println("plumb: no report written");
+            return 1;
+        }
         DiagnosticPrinter printer = new DiagnosticPrinter(Style.detect());
         a.diagnostics().forEach(d -> err.print(printer.print(a.source(), d)));
         err.flush();

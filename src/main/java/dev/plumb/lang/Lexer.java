@@ -99,17 +99,34 @@ public final class Lexer {
         add(TokenType.IDENT, src.substring(start, pos), start);
     }
 
+    /**
+     * A unit runs to its ']'. One left open is reported once, where it opened and where it stopped
+     * (the end of the line, or a ',', '[', '=' or ':' that cannot stand in a unit), and what it held up
+     * to there is still read as the unit, so the rest of the statement raises no follow-on errors.
+     */
     private void unit(int start) {
         int close = pos;
-        while (close < src.length() && src.charAt(close) != ']' && src.charAt(close) != '\n') close++;
+        while (close < src.length() && src.charAt(close) != ']' && !endsOpenUnit(src.charAt(close))) close++;
         if (close >= src.length() || src.charAt(close) != ']') {
-            error(start, close - start, "unit not closed: expected ']'");
+            boolean lineEnd = close >= src.length() || src.charAt(close) == '\n' || src.charAt(close) == '\r';
+            int stop = close;
+            while (stop > pos && Character.isWhitespace(src.charAt(stop - 1))) stop--;
+            String where = lineEnd ? "before the end of the line" : "before the '" + src.charAt(close) + "' at column " + (close - lineStart + 1);
+            diagnostics.error(Span.at(line, start - lineStart + 1, Math.max(1, stop - start)),
+                    "unit not closed: '[' at column " + (start - lineStart + 1) + " needs a ']' " + where);
+            if (stop > pos) {
+                tokens.add(new Token(TokenType.UNIT, src.substring(pos, stop), new Span(line, start - lineStart + 1, line, stop - lineStart + 1)));
+            }
             pos = close;
             return;
         }
         tokens.add(new Token(TokenType.UNIT, src.substring(pos, close),
                 new Span(line, start - lineStart + 1, line, close + 1 - lineStart + 1)));
         pos = close + 1;
+    }
+
+    private static boolean endsOpenUnit(char c) {
+        return c == '\n' || c == '\r' || c == ',' || c == '[' || c == '=' || c == ':' || c == '"';
     }
 
     private void string(int start) {

@@ -16,7 +16,13 @@ public final class TextReport {
     /** Past this many, the diagnostics of a file are counted rather than printed. */
     static final int MAX_DIAGNOSTICS = 50;
 
+    /** The whole summary: the diagnostics, then the results. */
     public String render(Analysis a, boolean strict) {
+        return diagnostics(a) + results(a, strict);
+    }
+
+    /** The located messages about the file (for standard error), at most {@link #MAX_DIAGNOSTICS} of them. */
+    public String diagnostics(Analysis a) {
         StringBuilder out = new StringBuilder();
         DiagnosticPrinter printer = new DiagnosticPrinter(style);
         int shown = 0;
@@ -29,11 +35,17 @@ public final class TextReport {
             out.append(printer.print(a.source(), d));
         }
         if (!a.diagnostics().isEmpty()) out.append('\n');
+        return out.toString();
+    }
+
+    /** The verdicts, closed forms, case tables and summary line (for standard output). */
+    public String results(Analysis a, boolean strict) {
+        StringBuilder out = new StringBuilder();
         String title = Style.inert(a.model() != null ? a.model().title() : "");
         out.append(style.bold(a.source().path())).append(title.isEmpty() || title.equals(a.source().path()) ? "" : "  " + title)
                 .append('\n');
         if (a.hasInputErrors()) {
-            out.append("  the input could not be understood; fix the errors above and run again\n");
+            out.append("  the input could not be understood; fix the errors reported for it and run again\n");
             return out.toString();
         }
         for (Check c : a.checks()) {

@@ -83,12 +83,18 @@ final class UnitSuggestions {
     for (int i = symbol.length() - 1; i >= 1; i--) {
       String left = symbol.substring(0, i);
       String right = symbol.substring(i);
-      if (everyday ? isEveryday(left) && isEveryday(right)
-          : UnitCatalog.lookup(left).isPresent() && UnitCatalog.lookup(right).isPresent()) {
+      if ((everyday ? isEveryday(left) && isEveryday(right)
+          : UnitCatalog.lookup(left).isPresent() && UnitCatalog.lookup(right).isPresent())
+          && !sameKind(left, right)) {
         out.add(left + " " + right);
       }
     }
     return first(out, 2);
+  }
+
+  /** Two units of one kind run together ("kg g", "m km") are a typo, not a product anyone means. */
+  private static boolean sameKind(String left, String right) {
+    return UnitCatalog.lookup(left).map(Unit::dimension).equals(UnitCatalog.lookup(right).map(Unit::dimension));
   }
 
   private static boolean isEveryday(String symbol) {
@@ -99,7 +105,9 @@ final class UnitSuggestions {
   private static List<String> typos(String symbol) {
     List<String> typo = new ArrayList<>();
     int allowed = symbol.length() >= 5 ? 2 : symbol.length() >= 3 ? 1 : 0;
-    for (String known : UnitCatalog.namedSymbols()) {
+    java.util.Set<String> pool = new java.util.TreeSet<>(UnitCatalog.namedSymbols());
+    pool.add("kg");
+    for (String known : pool) {
       if (editDistance(symbol, known) <= allowed) {
         typo.add(known);
       }

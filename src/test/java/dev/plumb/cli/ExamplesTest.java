@@ -20,14 +20,14 @@ class ExamplesTest {
         int column = lines.get(line - 1).indexOf("-G") + 1;
         Run run = Run.of("check", "--no-color", file.toString());
         assertEquals(1, run.status(), run::all);
-        assertTrue(run.out().contains(file + ":" + line + ":" + column + ": error: the two sides of relation 'balance'"), run.out());
+        assertTrue(run.err().contains(file + ":" + line + ":" + column + ": error: the two sides of relation 'balance'"), run.err());
     }
 
     @Test
     void polytropeInfersItsConstant() {
         Run run = Run.of("check", "--no-color", "examples/polytrope-inferred-constant.plumb");
         assertEquals(0, run.status(), run::all);
-        assertTrue(run.out().contains("note: the unit of 'K' is inferred: "), run.out());
-        assertTrue(run.out().contains("m^3 kg^(-1/3) s^-2"), run.out());
+        assertTrue(run.err().contains("note: the unit of 'K' is inferred: "), run.err());
+        assertTrue(run.err().contains("m^3 kg^(-1/3) s^-2"), run.err());
     }
 }

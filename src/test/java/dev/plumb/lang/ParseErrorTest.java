@@ -43,7 +43,7 @@ class ParseErrorTest {
         String text = "\n\nparam M [kg > 0\n";
         Diagnostic d = onlyError(text);
         assertAt(d, 3, "param M ".length() + 1);
-        assertTrue(d.message().contains("expected ']'"), d.message());
+        assertTrue(d.message().contains("needs a ']' before the end of the line"), d.message());
     }
 
     @Test
