@@ -11,7 +11,6 @@ import dev.plumb.model.Model;
 import dev.plumb.model.Status;
 import dev.plumb.report.Analysis;
 import java.io.IOException;
-import java.nio.charset.MalformedInputException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -72,27 +71,37 @@ public final class Analyzer {
     }
 
     public Analysis analyze(Path path) {
-        String text;
+        if (Files.isDirectory(path)) return unreadable(path, Span.NONE, "this is a directory, not a plumb file");
+        byte[] bytes;
         try {
-            text = Files.readString(path, StandardCharsets.UTF_8);
+            bytes = Files.readAllBytes(path);
         } catch (NoSuchFileException e) {
-            return unreadable(path, "no such file");
-        } catch (MalformedInputException e) {
-            return unreadable(path, "the file is not UTF-8 text");
-        } catch (IOException e) {
-            return unreadable(path, "cannot read the file: " + e.getMessage());
+            return unreadable(path, Span.NONE, "no such file");
+        } catch (java.nio.file.AccessDeniedException e) {
+            return unreadable(path, Span.NONE, "cannot read the file: permission denied");
+        } catch (IOException | OutOfMemoryError e) {
+            return unreadable(path, Span.NONE, "cannot read the file: " + (e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage()));
         }
-        return analyze(new SourceFile(path.toString(), text));
+        return analyze(path.toString(), bytes);
     }
 
-    /** Analyses text given as bytes (standard input, for {@code check -}), named {@code name} in messages. */
+    /** Analyses text given as bytes (a file's, or standard input's for {@code check -}), named {@code name} in messages. */
     public Analysis analyze(String name, byte[] bytes) {
-        try {
-            String text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
-            return analyze(new SourceFile(name, text));
-        } catch (java.nio.charset.CharacterCodingException e) {
-            return unreadable(Path.of(name), "the input is not UTF-8 text");
+        java.nio.ByteBuffer in = java.nio.ByteBuffer.wrap(bytes);
+        java.nio.CharBuffer text = java.nio.CharBuffer.allocate(bytes.length + 1);
+        java.nio.charset.CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder();
+        java.nio.charset.CoderResult result = decoder.decode(in, text, true);
+        if (result.isError()) {
+            // Located at the first byte that is not UTF-8, counted in lines and characters decoded so far.
+            String before = text.flip().toString();
+            int line = 1 + (int) before.chars().filter(c -> c == '\n').count();
+            int column = before.length() - (before.lastIndexOf('\n') + 1) + 1;
+            return unreadable(new SourceFile(name, before), Span.at(line, column, 1), String.format(java.util.Locale.ROOT,
+                    "the %s is not UTF-8 text (byte 0x%02X cannot start or continue a UTF-8 character); save it as UTF-8",
+                    name.equals("<stdin>") ? "input" : "file", bytes[in.position()] & 0xFF));
         }
+        decoder.flush(text);
+        return analyze(new SourceFile(name, text.flip().toString()));
     }
 
     public Analysis analyze(SourceFile source) {
@@ -213,10 +222,14 @@ public final class Analyzer {
         return l.present() ? l.name() : "line " + span.line();
     }
 
-    private static Analysis unreadable(Path path, String why) {
-        SourceFile source = new SourceFile(path.toString(), "");
+    private static Analysis unreadable(Path path, Span where, String why) {
+        return unreadable(new SourceFile(path.toString(), ""), where, why);
+    }
+
+    /** An analysis that stops at the text: {@code source} holds what could be read (quoted under the message). */
+    private static Analysis unreadable(SourceFile source, Span where, String why) {
         Diagnostics d = new Diagnostics();
-        d.error(Span.NONE, why);
+        d.error(where, why);
         return new Analysis(source, null, d.sorted(), List.of(), List.of(), List.of(), List.of(), List.of());
     }
 

@@ -79,4 +79,24 @@ class StreamsAndLimitsTest {
         assertEquals(0, run.status(), run::all);
         assertFalse(run.all().contains("\tat dev.plumb"), run.all());
     }
+
+    @Test
+    void textThatIsNotUtf8IsLocatedAtItsFirstBadByte() throws IOException {
+        Path f = dir.resolve("latin1.plumb");
+        byte[] head = "param M [kg] > 0\nclaim c: M = M ".getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        byte[] bytes = java.util.Arrays.copyOf(head, head.length + 2);
+        bytes[head.length] = (byte) 0xB5; // ISO 8859-1 micro sign, not UTF-8 on its own
+        bytes[head.length + 1] = '\n';
+        Files.write(f, bytes);
+        Run run = Run.of("check", "--no-color", f.toString());
+        assertEquals(2, run.status(), run::all);
+        assertTrue(run.err().contains(f + ":2:16: error: the file is not UTF-8 text (byte 0xB5"), run.err());
+    }
+
+    @Test
+    void aDirectorySaysSo() {
+        Run run = Run.of("check", "--no-color", dir.toString());
+        assertEquals(2, run.status(), run::all);
+        assertTrue(run.err().contains(dir + ": error: this is a directory, not a plumb file"), run.err());
+    }
 }
