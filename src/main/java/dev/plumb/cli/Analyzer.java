@@ -114,6 +114,7 @@ public final class Analyzer {
         List<String> scales = List.of();
         List<Analysis.CaseTable> tables = new ArrayList<>();
         List<dev.plumb.lang.Diagnostic> found = new ArrayList<>(model.diagnostics());
+        List<dev.plumb.numeric.Sequences.Result> sweeps = new ArrayList<>();
         List<String> skipped = new ArrayList<>();
         if (!diagnostics.hasInputErrors()) {
             Map<String, Expr> closedForms = new LinkedHashMap<>();
@@ -136,6 +137,7 @@ public final class Analyzer {
                 checks.addAll(numeric.checks());
                 notes.addAll(numeric.notes());
                 found.addAll(numeric.diagnostics());
+                sweeps.addAll(numeric.sequences());
                 for (CaseResult c : numeric.cases()) {
                     Analysis.CaseTable t = guarded(skipped, "case table", notes, () -> cases.table(c, options.profiles()));
                     if (t != null) tables.add(t);
@@ -169,7 +171,7 @@ public final class Analyzer {
         }
         found.sort(java.util.Comparator.comparingInt((dev.plumb.lang.Diagnostic d) -> d.span().line())
                 .thenComparingInt(d -> d.span().column()));
-        return new Analysis(source, model, found, checks, derived, tables, scales, notes);
+        return new Analysis(source, model, found, checks, derived, tables, scales, notes, sweeps);
     }
 
     /**

@@ -19,7 +19,7 @@ public final class Parser {
 
     /** The statement keywords, in the order the language reference lists them. */
     public static final List<String> STATEMENTS = List.of("title", "param", "coord", "let", "unknown",
-            "relation", "boundary", "step", "claim", "scaling", "case", "expect", "show", "guess");
+            "relation", "boundary", "step", "claim", "scaling", "case", "sweep", "expect", "show", "guess");
 
     private static final Set<String> RESERVED = Set.of("if", "then", "else", "from", "to", "at", "within", "in");
 
@@ -121,6 +121,7 @@ public final class Parser {
             }
             case "scaling" -> scaling(keyword);
             case "case" -> caseStatement(keyword);
+            case "sweep" -> sweep(keyword);
             case "expect" -> expect(keyword);
             case "show" -> show(keyword);
             case "guess" -> guess(keyword);
@@ -266,8 +267,64 @@ public final class Parser {
         return new Stmt.Assignment(name.text(), name.span(), value, uncertainty, name.span().to(end));
     }
 
+    private Stmt sweep(Token keyword) {
+        Label label = label();
+        if (!label.present()) {
+            throw error(peek(), "a sweep needs a name, e.g. sweep family: rho_c from 1e17 [kg/m^3] to 1e20 [kg/m^3] log 40");
+        }
+        Token param = identifier("expected the parameter to vary, e.g. sweep family: rho_c from 1e17 [kg/m^3] to 1e20 [kg/m^3] log 40");
+        expectWord("from", "expected 'from' and the first value of '" + param.text() + "'");
+        Expr from = expression();
+        expectWord("to", "expected 'to' and the last value of '" + param.text() + "'");
+        Expr to = expression();
+        boolean log;
+        if (matchWord("log")) {
+            log = true;
+        } else if (matchWord("linear")) {
+            log = false;
+        } else {
+            throw error(peek(), "expected 'log N' or 'linear N' (N points), found " + peek().describe());
+        }
+        Token n = peek();
+        if (!n.is(TokenType.NUMBER) || !n.text().matches("[0-9]+")) {
+            throw error(n, "expected the number of points, a whole number from 2 to " + MAX_SWEEP_POINTS + ", found " + n.describe());
+        }
+        advance();
+        int count;
+        try {
+            count = Integer.parseInt(n.text());
+        } catch (NumberFormatException e) {
+            count = Integer.MAX_VALUE;
+        }
+        if (count < 2 || count > MAX_SWEEP_POINTS) {
+            throw error(n, "a sweep has from 2 to " + MAX_SWEEP_POINTS + " points, found " + n.text());
+        }
+        List<Stmt.Assignment> others = new ArrayList<>();
+        while (match(TokenType.COMMA)) others.add(assignment());
+        Span end = others.isEmpty() ? n.span() : others.get(others.size() - 1).span();
+        return new Stmt.Sweep(label, param.text(), param.span(), from, to, log, count, n.span(), others, keyword.span().to(end));
+    }
+
+    /** The most points one sweep may have: a sequence is for curves and extrema, not for brute force. */
+    public static final int MAX_SWEEP_POINTS = 10_000;
+
     private Stmt expect(Token keyword) {
         Label label = label();
+        Stmt.Extremum extremum = null;
+        Token kind = peek();
+        if (kind.is(TokenType.IDENT) && (kind.text().equals("max") || kind.text().equals("min")) && startsExpression(peekNext())) {
+            advance();
+            Expr quantity = expression();
+            expectWord("over", "expected 'over' and the name of a sweep, e.g. expect " + (label.present() ? label.name() : "top")
+                    + ": " + kind.text() + " m(R) over family = 2.0 [Msun] within 0.1%");
+            Token sweep = identifier("expected the name of a sweep after 'over'");
+            extremum = new Stmt.Extremum(kind.text().equals("max"), kind.span(), sweep.text(), sweep.span());
+            consume(TokenType.EQUALS, "expected '=' and the expected value, e.g. expect top: max m(R) over family = 2.0 [Msun] within 0.1%");
+            Expr expected = expression();
+            expectWord("within", "expected 'within' and a tolerance, e.g. within 0.1%");
+            Tolerance tolerance = tolerance();
+            return new Stmt.Expect(label, quantity, null, Span.NONE, expected, tolerance, keyword.span().to(tolerance.span()), extremum);
+        }
         Expr lhs = expression();
         String caseName = null;
         Span caseSpan = Span.NONE;
@@ -562,6 +619,12 @@ public final class Parser {
 
     private Token peek() {
         return tokens.get(current);
+    }
+
+    /** Whether a token can begin an expression (after {@code max} or {@code min} in an expectation). */
+    private static boolean startsExpression(Token t) {
+        return t.is(TokenType.NUMBER) || t.is(TokenType.LPAREN) || t.is(TokenType.MINUS)
+                || t.is(TokenType.IDENT) && !RESERVED.contains(t.text());
     }
 
     private Token peekNext() {

@@ -100,9 +100,34 @@ public sealed interface Stmt {
     /** {@code M = 1.0 +- 0.02 [Msun]}: {@code uncertainty} (one standard deviation) may be null. */
     record Assignment(String name, Span nameSpan, Expr value, Expr uncertainty, Span span) { }
 
-    /** {@code expect L: Q at CASE = V within TOL}; {@code caseName} is null when {@code at} is left out. */
+    /**
+     * {@code expect L: Q at CASE = V within TOL}; {@code caseName} is null when {@code at} is left out.
+     * With {@code extremum} set it is {@code expect L: max Q over SWEEP = V within TOL} (or {@code min}).
+     */
     record Expect(Label label, Expr lhs, String caseName, Span caseSpan, Expr expected, Tolerance tolerance,
-                  Span span) implements Stmt { }
+                  Span span, Extremum extremum) implements Stmt {
+        public Expect(Label label, Expr lhs, String caseName, Span caseSpan, Expr expected, Tolerance tolerance, Span span) {
+            this(label, lhs, caseName, caseSpan, expected, tolerance, span, null);
+        }
+    }
+
+    /** {@code max ... over SWEEP} or {@code min ... over SWEEP} in an expectation. */
+    record Extremum(boolean max, Span kindSpan, String sweep, Span sweepSpan) {
+        public String word() {
+            return max ? "max" : "min";
+        }
+    }
+
+    /**
+     * {@code sweep L: P from A to B log N} (or {@code linear N}), then optionally {@code , NAME = VALUE}
+     * for the other free parameters as in a case: a sequence of N models.
+     */
+    record Sweep(Label label, String param, Span paramSpan, Expr from, Expr to, boolean log, int count, Span countSpan,
+                 List<Assignment> others, Span span) implements Stmt {
+        public Sweep {
+            others = List.copyOf(others);
+        }
+    }
 
     /**
      * How close an expectation must come: a relative tolerance (from {@code 0.1%} or {@code 1e-6}),

@@ -62,6 +62,7 @@ public final class Checker {
         describeHeldUnits();
         List<CaseValues> cases = cases();
         if (!diagnostics.hasErrors()) checkCaseAssumptions(cases);
+        List<SweepSpec> sweeps = new SweepChecker(program, declarations, inference, diagnostics, this::constantSymbol).sweeps();
         checkExpectCases();
         Map<String, Symbol> symbols = symbols();
         reportInferredUnits(symbols);
@@ -79,7 +80,7 @@ public final class Checker {
                 program.all(Stmt.Relation.class), sides.boundaries(program.all(Stmt.Boundary.class)),
                 sides.steps(program.all(Stmt.Step.class)), sides.claims(program.all(Stmt.Claim.class)),
                 sides.scalings(program.all(Stmt.Scaling.class)), cases, program.all(Stmt.Expect.class),
-                program.all(Stmt.Show.class), program.all(Stmt.Guess.class), Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
+                program.all(Stmt.Show.class), program.all(Stmt.Guess.class), sweeps, Collections.unmodifiableMap(dims), List.copyOf(unitChecks), diagnostics.sorted());
     }
 
     // ---- declarations ----------------------------------------------------------------------
@@ -454,7 +455,17 @@ public final class Checker {
         boolean hasFree = declarations.values().stream().anyMatch(s -> s instanceof Stmt.Param p && p.value() == null);
         Set<String> caseNames = new HashSet<>();
         program.all(Stmt.Case.class).forEach(c -> caseNames.add(c.label().name()));
+        Set<String> sweepNames = new HashSet<>();
+        program.all(Stmt.Sweep.class).forEach(s -> sweepNames.add(s.label().name()));
         for (Stmt.Expect e : program.all(Stmt.Expect.class)) {
+            if (e.extremum() != null) {
+                if (!sweepNames.contains(e.extremum().sweep())) {
+                    diagnostics.error(e.extremum().sweepSpan(), "there is no sweep named '" + e.extremum().sweep() + "'"
+                            + dev.plumb.lang.Names.closest(e.extremum().sweep(), sweepNames).map(s -> "; did you mean '" + s + "'?")
+                            .orElse(sweepNames.isEmpty() ? "; declare one, e.g. sweep " + e.extremum().sweep() + ": M from 1 [Msun] to 2 [Msun] log 20" : ""));
+                }
+                continue;
+            }
             if (e.caseName() == null && hasFree) {
                 diagnostics.error(e.lhs().span(), "this expectation needs 'at CASE': the file has free parameters",
                         "e.g. expect " + labelOf(e.label(), e.span()) + ": " + ExprPrinter.print(e.lhs()) + " at "

@@ -32,6 +32,7 @@ public record Model(
         List<Stmt.Expect> expects,
         List<Stmt.Show> shows,
         List<Stmt.Guess> guesses,
+        List<SweepSpec> sweeps,
         Map<Expr, Dimension> dimensions,
         List<Check> unitChecks,
         List<Diagnostic> diagnostics) {
@@ -62,6 +63,15 @@ public record Model(
 
     public List<Symbol.UnknownConstant> unknownConstants() {
         return symbols(Symbol.UnknownConstant.class);
+    }
+
+    public Optional<SweepSpec> sweepNamed(String label) {
+        return sweeps.stream().filter(s -> s.label().equals(label)).findFirst();
+    }
+
+    /** The expectations about one case (not about the extremum of a sweep). */
+    public List<Stmt.Expect> caseExpects() {
+        return expects.stream().filter(e -> e.extremum() == null).toList();
     }
 
     public Optional<CaseValues> caseNamed(String label) {

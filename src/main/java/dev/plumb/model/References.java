@@ -45,6 +45,11 @@ public final class References {
         } else if (s instanceof Stmt.Guess g) {
             collect(g.target(), out);
             collect(g.value(), out);
+        } else if (s instanceof Stmt.Sweep sw) {
+            out.add(sw.param());
+            collect(sw.from(), out);
+            collect(sw.to(), out);
+            sw.others().forEach(a -> collect(a.value(), out));
         } else if (s instanceof Stmt.Case c) {
             c.assignments().forEach(a -> {
                 collect(a.value(), out);

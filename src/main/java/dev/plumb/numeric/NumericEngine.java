@@ -129,13 +129,13 @@ public final class NumericEngine {
         List<dev.plumb.model.CaseValues> all = new ArrayList<>(model.cases());
         if (all.isEmpty() && model.freeParams().isEmpty()) {
             all.add(new dev.plumb.model.CaseValues(IMPLICIT_CASE, Span.NONE, Map.of(), Map.of()));
-        } else if (all.isEmpty()) {
+        } else if (all.isEmpty() && model.sweeps().isEmpty()) {
             notes.add("no case gives values to the free parameters, so nothing was integrated; add e.g. case sun: "
                     + model.freeParams().get(0).name() + " = ...");
         }
         Map<String, Wanted> wanted = wanted(model);
         for (dev.plumb.model.CaseValues c : all) {
-            List<Stmt.Expect> expects = model.expects().stream()
+            List<Stmt.Expect> expects = model.caseExpects().stream()
                     .filter(e -> e.caseName() == null ? c.label().equals(IMPLICIT_CASE) || model.cases().size() <= 1
                             : e.caseName().equals(c.label())).toList();
             Solution solution;
@@ -170,7 +170,8 @@ public final class NumericEngine {
             for (Stmt.Expect e : expects) checks.add(expect(model, c, e, solution, tight, diagnostics));
             cases.add(new CaseResult(c.label(), solution.method(), rows, null));
         }
-        return new NumericResult(cases, checks, notes, diagnostics);
+        List<Sequences.Result> sequences = Sequences.run(model, closedForms, options, checks);
+        return new NumericResult(cases, checks, notes, diagnostics, sequences);
     }
 
     private static Map<String, Wanted> wanted(Model model) {
@@ -183,7 +184,7 @@ public final class NumericEngine {
             Wanted old = out.get(key);
             out.put(key, new Wanted(old == null ? c.equation().lhs() : old.expr(), old == null ? null : old.shownUnit(), c.equation().rhs()));
         }
-        for (Stmt.Expect e : model.expects()) out.putIfAbsent(ExprPrinter.print(e.lhs()), new Wanted(e.lhs(), null, null));
+        for (Stmt.Expect e : model.caseExpects()) out.putIfAbsent(ExprPrinter.print(e.lhs()), new Wanted(e.lhs(), null, null));
         return out;
     }
 

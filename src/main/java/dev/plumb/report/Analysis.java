@@ -16,9 +16,16 @@ import java.util.Map;
  * @param model null when the file could not be parsed far enough to build one
  */
 public record Analysis(SourceFile source, Model model, List<Diagnostic> diagnostics, List<Check> checks,
-                       List<DerivedForm> derived, List<CaseTable> cases, List<String> scales, List<String> notes) {
+                       List<DerivedForm> derived, List<CaseTable> cases, List<String> scales, List<String> notes,
+                       List<dev.plumb.numeric.Sequences.Result> sweeps) {
+
+    public Analysis(SourceFile source, Model model, List<Diagnostic> diagnostics, List<Check> checks,
+                    List<DerivedForm> derived, List<CaseTable> cases, List<String> scales, List<String> notes) {
+        this(source, model, diagnostics, checks, derived, cases, scales, notes, List.of());
+    }
 
     public Analysis {
+        sweeps = List.copyOf(sweeps);
         diagnostics = List.copyOf(diagnostics);
         checks = List.copyOf(checks);
         derived = List.copyOf(derived);

@@ -96,6 +96,7 @@ public final class JsonReport {
             cases.add(m);
         }
         root.put("cases", cases);
+        if (!a.sweeps().isEmpty()) root.put("sweeps", a.sweeps().stream().map(dev.plumb.numeric.Sequences::toMap).toList());
         if (!a.scales().isEmpty()) root.put("scales", a.scales());
         if (!a.notes().isEmpty()) root.put("notes", a.notes());
         return root;

@@ -91,10 +91,62 @@ public final class TextReport {
                 }
             }
         }
+        for (dev.plumb.numeric.Sequences.Result r : a.sweeps()) sweep(out, r);
         for (String scale : a.scales()) out.append("  ").append(scale).append('\n');
         for (String note : a.notes()) out.append("  note: ").append(Style.inert(note)).append('\n');
         out.append('\n').append(summary(a, strict)).append('\n');
         return out.toString();
+    }
+
+    /** Past this many points a sequence's table shows every k-th one (all of them are in JSON and CSV). */
+    static final int MAX_SWEEP_ROWS = 40;
+
+    private void sweep(StringBuilder out, dev.plumb.numeric.Sequences.Result r) {
+        var spec = r.spec();
+        double pf = spec.unit() != null ? spec.factor() : 1.0;
+        out.append('\n').append("  sweep ").append(style.bold(Style.inert(spec.label())))
+                .append(style.dim(String.format(Locale.ROOT, "  (%s from %.6g to %.6g%s, %s, %d points, %d solved)", spec.param(),
+                        spec.values()[0] / pf, spec.values()[spec.size() - 1] / pf, r.paramUnit().equals("1") ? "" : " " + r.paramUnit(),
+                        spec.log() ? "log" : "linear",
+                        spec.size(), r.solved()))).append('\n');
+        java.util.List<String> heads = new java.util.ArrayList<>();
+        heads.add(spec.param() + " [" + r.paramUnit() + "]");
+        for (var c : r.columns()) heads.add(c.expr() + " [" + (c.shownUnit() != null ? c.shownUnit() : c.unit()) + "]");
+        StringBuilder head = new StringBuilder("   ");
+        for (String h : heads) head.append(String.format(Locale.ROOT, " %-16s", Style.inert(h)));
+        out.append(head.toString().stripTrailing()).append('\n');
+        int step = Math.max(1, (int) Math.ceil(spec.size() / (double) MAX_SWEEP_ROWS));
+        for (int i = 0; i < spec.size(); i++) {
+            if (i % step != 0 && i != spec.size() - 1) continue;
+            var p = r.points().get(i);
+            StringBuilder row = new StringBuilder("   ").append(String.format(Locale.ROOT, " %-16.6e", p.value() / pf));
+            if (p.failure() != null) {
+                row.append(' ').append(style.red("not solved: ")).append(Style.inert(p.failure()));
+            } else {
+                for (int k = 0; k < r.columns().size(); k++) {
+                    double v = dev.plumb.numeric.Sequences.shown(r.columns().get(k), p.quantities()[k]);
+                    row.append(String.format(Locale.ROOT, " %-16s", Double.isFinite(v) ? String.format(Locale.ROOT, "%.6e", v) : "-"));
+                }
+            }
+            out.append(row.toString().stripTrailing()).append('\n');
+        }
+        if (step > 1) out.append(style.dim("    (every " + step + "th point shown; all " + spec.size() + " are in --format json)")).append('\n');
+        if (!r.columns().isEmpty()) {
+            int n = spec.size();
+            double[] x = new double[n], y = new double[n];
+            var yc = r.columns().size() >= 2 ? r.columns().get(1) : r.columns().get(0);
+            int yk = r.columns().size() >= 2 ? 1 : 0;
+            for (int i = 0; i < n; i++) {
+                var p = r.points().get(i);
+                boolean ok = p.failure() == null;
+                x[i] = !ok ? Double.NaN : r.columns().size() >= 2 ? dev.plumb.numeric.Sequences.shown(r.columns().get(0), p.quantities()[0]) : p.value() / pf;
+                y[i] = !ok ? Double.NaN : dev.plumb.numeric.Sequences.shown(yc, p.quantities()[yk]);
+            }
+            String xLabel = r.columns().size() >= 2 ? heads.get(1) : heads.get(0);
+            String yLabel = r.columns().size() >= 2 ? heads.get(2) : heads.get(1);
+            String curve = AsciiCurve.draw(x, y, Style.inert(xLabel), Style.inert(yLabel) + " against " + Style.inert(xLabel), "    ");
+            if (!curve.isEmpty()) out.append('\n').append(curve);
+        }
     }
 
     private String summary(Analysis a, boolean strict) {
