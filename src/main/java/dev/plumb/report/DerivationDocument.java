@@ -43,6 +43,7 @@ public final class DerivationDocument {
         checks("Claims", "claim");
         scaling();
         cases();
+        sequences();
         checks("Expectations", "expect");
         if (!a.notes().isEmpty()) {
             // The notes say what could not be done (a closed form not found, a plot not drawn) and why.
@@ -220,6 +221,63 @@ public final class DerivationDocument {
                 m.figure("plot-" + t.label() + "-" + p.profile() + "-" + (i++), p.profile() + "(" + p.coordinate() + ") for case "
                         + t.label(), p.coordinate() + " [" + p.coordinateUnit() + "]", p.profile() + " [" + p.unit() + "]", series, files);
             }
+        }
+    }
+
+    /** Each sweep: its table in the file's units, the second shown quantity against the first, and its data file. */
+    private void sequences() throws IOException {
+        if (a.sweeps().isEmpty()) return;
+        m.heading(2, "Sequences of models");
+        for (dev.plumb.numeric.Sequences.Result r : a.sweeps()) {
+            var spec = r.spec();
+            double pf = spec.unit() != null ? spec.factor() : 1.0;
+            String unit = r.paramUnit().equals("1") ? "" : " " + r.paramUnit();
+            m.heading(3, "Sweep " + spec.label());
+            m.paragraph(String.format(Locale.ROOT, "%s from %s%s to %s%s, %d points spaced %s; %d solved. The data are in %s.",
+                    spec.param(), fmt(spec.values()[0] / pf), unit, fmt(spec.values()[spec.size() - 1] / pf), unit, spec.size(),
+                    spec.log() ? "evenly in the logarithm" : "evenly", r.solved(), SequenceData.fileName(r)));
+            List<String> header = new ArrayList<>();
+            header.add(spec.param() + " [" + r.paramUnit() + "]");
+            for (var c : r.columns()) header.add(c.expr() + " [" + (c.shownUnit() != null ? c.shownUnit() : c.unit()) + "]");
+            List<List<Markup.Cell>> rows = new ArrayList<>();
+            for (var p : r.points()) {
+                List<Markup.Cell> row = new ArrayList<>();
+                row.add(Markup.Cell.text(fmt(p.value() / pf)));
+                for (int k = 0; k < r.columns().size(); k++) {
+                    double v = dev.plumb.numeric.Sequences.shown(r.columns().get(k), p.quantities()[k]);
+                    row.add(Markup.Cell.text(p.failure() != null ? (k == 0 ? "not solved: " + p.failure() : "") : Double.isFinite(v) ? fmt(v) : "—"));
+                }
+                rows.add(row);
+            }
+            m.table(header, rows);
+            for (var x : r.extrema()) {
+                var col = r.columns().stream().filter(c -> c.expr().equals(x.expr())).findFirst().orElseThrow();
+                String shown = col.shownUnit() != null ? col.shownUnit() : col.unit();
+                m.paragraph(String.format(Locale.ROOT, "%s of %s over %s: %s %s at %s = %s%s (%s).", x.max() ? "Maximum" : "Minimum", x.expr(),
+                        spec.label(), fmt(dev.plumb.numeric.Sequences.shown(col, x.value())), shown.equals("1") ? "" : shown, spec.param(),
+                        fmt(x.at() / pf), unit, x.how()));
+            }
+            if (!r.columns().isEmpty()) {
+                int n = spec.size();
+                boolean pair = r.columns().size() >= 2;
+                List<double[]> xs = new ArrayList<>(), ys = new ArrayList<>();
+                double[] x = new double[n], y = new double[n];
+                int used = 0;
+                for (var p : r.points()) {
+                    if (p.failure() != null) continue;
+                    double xv = pair ? dev.plumb.numeric.Sequences.shown(r.columns().get(0), p.quantities()[0]) : p.value() / pf;
+                    double yv = dev.plumb.numeric.Sequences.shown(r.columns().get(pair ? 1 : 0), p.quantities()[pair ? 1 : 0]);
+                    if (!Double.isFinite(xv) || !Double.isFinite(yv)) continue;
+                    x[used] = xv;
+                    y[used++] = yv;
+                }
+                if (used >= 2) {
+                    String xLabel = pair ? header.get(1) : header.get(0), yLabel = pair ? header.get(2) : header.get(1);
+                    m.figure("sweep-" + spec.label(), yLabel + " against " + xLabel + " along sweep " + spec.label(), xLabel, yLabel,
+                            List.of(new Plot.Series("numeric", java.util.Arrays.copyOf(x, used), java.util.Arrays.copyOf(y, used), false)), files);
+                }
+            }
+            files.put(SequenceData.fileName(r), SequenceData.csv(r));
         }
     }
 

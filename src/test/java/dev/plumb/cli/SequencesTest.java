@@ -162,4 +162,34 @@ class SequencesTest {
         assertTrue(err.contains(f + ":7:41: error: a sweep has from 2 to 10000 points, found 1"), err);
         assertTrue(err.contains(f + ":8:24: error: there is no sweep named 'nowhere'"), err);
     }
+
+    @Test
+    void aReportCarriesTheSequenceAsATableAPlotAndCsvDataInTheFilesUnits() throws IOException {
+        Path f = Files.writeString(dir.resolve("line.plumb"), """
+                param x [km]
+                let f = 2*x
+                show f in [m]
+                show x^2 in [km^2]
+                sweep s: x from 1 [km] to 4 [km] linear 4
+                """);
+        Path out = dir.resolve("report");
+        Run run = Run.of("report", f.toString(), "--format", "md", "--out", out.toString());
+        assertEquals(0, run.status(), run::all);
+        List<String> csv = Files.readAllLines(out.resolve("sweep-s.csv"));
+        assertEquals("x [km],f [m],f [m] (SI),x^2 [km^2],x^2 [m^2] (SI),failure", csv.get(0));
+        assertEquals(5, csv.size());
+        for (int i = 1; i <= 4; i++) {
+            String[] cells = csv.get(i).split(",", -1);
+            double x = Double.parseDouble(cells[0]);
+            assertEquals(i, x, 1e-12);
+            assertEquals(2000 * x, Double.parseDouble(cells[1]), 1e-9);
+            assertEquals(x * x, Double.parseDouble(cells[3]), 1e-9);
+            assertEquals(1e6 * x * x, Double.parseDouble(cells[4]), 1e-3);
+            assertEquals("", cells[5]);
+        }
+        String md = Files.readString(out.resolve("line.md"));
+        assertTrue(md.contains("### Sweep s"), md);
+        assertTrue(md.contains("| x [km] | f [m] | x^2 [km^2] |"), md);
+        assertTrue(Files.exists(out.resolve("sweep-s.svg")));
+    }
 }
