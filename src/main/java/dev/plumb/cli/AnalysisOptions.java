@@ -30,7 +30,7 @@ final class AnalysisOptions {
         return timeout == null ? Long.MAX_VALUE : started + (long) (timeout * 1e9);
     }
 
-    /** Validates the options and starts Symja's warm-up, which is worth starting before the file is even read. */
+    /** Validates the options and makes the analyzer they describe. */
     Analyzer analyzer(CommandLine commandLine, boolean profiles) {
         if (!(symbolicTimeout > 0) || symbolicTimeout > 3600) {
             throw new CommandLine.ParameterException(commandLine,
@@ -40,7 +40,6 @@ final class AnalysisOptions {
             throw new CommandLine.ParameterException(commandLine,
                     "--timeout must be a number of seconds above 0 and at most 86400, found " + timeout);
         }
-        SymbolicEngine.warmUp();
         return new Analyzer(new Analyzer.Options(symbolicTimeout, profiles, deadline(), timeout == null ? 0 : timeout, debug));
     }
 

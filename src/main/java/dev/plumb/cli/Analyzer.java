@@ -117,6 +117,7 @@ public final class Analyzer {
         List<dev.plumb.numeric.Sequences.Result> sweeps = new ArrayList<>();
         List<String> skipped = new ArrayList<>();
         if (!diagnostics.hasInputErrors()) {
+            SymbolicEngine.prepare(model);
             Map<String, Expr> closedForms = new LinkedHashMap<>();
             SymbolicResult symbolic = guarded(skipped, "symbolic", notes, () -> SymbolicEngine.analyze(model,
                     new SymbolicOptions(options.symbolicSeconds())));

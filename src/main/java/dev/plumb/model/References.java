@@ -71,6 +71,15 @@ public final class References {
         });
     }
 
+    /** Whether either side of the equation takes a derivative ({@code P'(r)}). */
+    public static boolean hasDerivative(Stmt.Equation eq) {
+        boolean[] found = {false};
+        java.util.function.Consumer<Expr> look = x -> found[0] |= x instanceof Expr.Call c && c.order() > 0;
+        walk(eq.lhs(), look);
+        walk(eq.rhs(), look);
+        return found[0];
+    }
+
     /** Visits {@code e} and every expression inside it, the operands of an {@code if} condition included. */
     public static void walk(Expr e, java.util.function.Consumer<Expr> visit) {
         visit.accept(e);

@@ -179,6 +179,7 @@ final class FirstOrder {
     }
 
     private IExpr integrate(IExpr g, ISymbol v) {
+        Symja.loadIntegrationRules();
         IExpr result = symja.eval(F.Integrate(g, v));
         if (result.has(S.Integrate, true)) throw new Symja.Failure("Symja found no antiderivative", false);
         return result;

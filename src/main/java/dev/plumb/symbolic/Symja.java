@@ -63,37 +63,53 @@ final class Symja {
         Config.MAX_AST_SIZE = 1_000_000;
     }
 
-    /** Loads Symja's rule tables on a background thread; later sessions start warm. */
-    static synchronized void warmUp() {
-        if (warmer != null) return;
+    private static boolean integrationRulesLoaded;
+
+    /**
+     * Starts loading Symja's integration rules on a background thread, for a file that will integrate:
+     * the loading then overlaps the work before the first antiderivative is sought.
+     */
+    static synchronized void preloadIntegrationRules() {
+        if (warmer != null || integrationRulesLoaded) return;
         warmer = new Thread(() -> {
             try {
-                Symja s = new Symja(30);
-                ISymbol x = F.Dummy("plumbwarm");
-                s.eval(F.Simplify(F.Integrate(F.Times(x, F.Sin(x)), x)));
+                loadIntegrationRules();
             } catch (RuntimeException | LinkageError ignored) {
-                // A failed warm-up only costs time later. When the run ends before the warm-up does
-                // (a file with a syntax error), Symja's static set-up fails with an Error as the JVM
-                // shuts down; the default handler would print its stack trace on the user's screen.
+                // A failed preload only costs time later. When the run ends before the preload does (the
+                // JVM shutting down), Symja's static set-up fails with an Error that must not reach the screen.
             }
-        }, "plumb-symja-warm-up");
+        }, "plumb-symja-integration-rules");
         warmer.setDaemon(true);
         warmer.start();
     }
 
     /**
-     * Waits (at most {@code seconds}) for the warm-up to finish, starting it if need be: Symja loads
-     * its integration rules on first use, and a time limit that starts before they are loaded can run
-     * out on the loading alone.
+     * Loads Symja's integration rules (once per process) outside any check's time limit: Symja reads them
+     * on the first antiderivative, and a limit that included the reading could run out on it alone. Files
+     * that never integrate never pay for them.
      */
-    static void awaitWarm(double seconds) {
-        warmUp();
-        try {
-            warmer.join(Math.round(seconds * 1000));
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
+    static void loadIntegrationRules() {
+        synchronized (Symja.class) {
+            if (integrationRulesLoaded) return;
+        }
+        synchronized (INTEGRATION_LOCK) {
+            if (integrationRulesLoaded) return;
+            Symja s = new Symja(120);
+            try {
+                ISymbol x = F.Dummy("plumbwarm");
+                s.eval(F.Integrate(F.Times(x, F.Sin(x)), x));
+            } catch (Failure ignored) {
+                // The rules are loaded as far as they could be; the integration itself will say what failed.
+            } finally {
+                s.close();
+            }
+            synchronized (Symja.class) {
+                integrationRulesLoaded = true;
+            }
         }
     }
+
+    private static final Object INTEGRATION_LOCK = new Object();
 
     double timeoutSeconds() {
         return timeoutSeconds;

@@ -25,7 +25,7 @@ class HighPrecisionTest {
 
     @BeforeAll
     static void start() {
-        Symja.awaitWarm(30);
+        Symja.loadIntegrationRules();
         symja = new Symja(10);
     }
 
