@@ -32,6 +32,11 @@ final class AnalysisOptions {
 
     /** Validates the options and makes the analyzer they describe. */
     Analyzer analyzer(CommandLine commandLine, boolean profiles) {
+        return analyzer(commandLine, profiles, Analyzer.Listener.NONE);
+    }
+
+    /** As {@link #analyzer(CommandLine, boolean)}, telling {@code listener} what the analysis is doing. */
+    Analyzer analyzer(CommandLine commandLine, boolean profiles, Analyzer.Listener listener) {
         if (!(symbolicTimeout > 0) || symbolicTimeout > 3600) {
             throw new CommandLine.ParameterException(commandLine,
                     "--symbolic-timeout must be a number of seconds above 0 and at most 3600, found " + symbolicTimeout);
@@ -40,7 +45,7 @@ final class AnalysisOptions {
             throw new CommandLine.ParameterException(commandLine,
                     "--timeout must be a number of seconds above 0 and at most 86400, found " + timeout);
         }
-        return new Analyzer(new Analyzer.Options(symbolicTimeout, profiles, deadline(), timeout == null ? 0 : timeout, debug));
+        return new Analyzer(new Analyzer.Options(symbolicTimeout, profiles, deadline(), timeout == null ? 0 : timeout, debug, listener));
     }
 
     /**

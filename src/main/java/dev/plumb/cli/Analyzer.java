@@ -43,9 +43,10 @@ public final class Analyzer {
      * skipped and its checks are undecided, with a located failure saying so. With {@code debug} a stage
      * that stops on a defect prints its stack trace to standard error.
      */
-    public record Options(double symbolicTimeoutSeconds, boolean profiles, long deadline, double timeoutSeconds, boolean debug) {
+    public record Options(double symbolicTimeoutSeconds, boolean profiles, long deadline, double timeoutSeconds, boolean debug,
+                          Listener listener) {
         public Options(double symbolicTimeoutSeconds, boolean profiles) {
-            this(symbolicTimeoutSeconds, profiles, Long.MAX_VALUE, 0, false);
+            this(symbolicTimeoutSeconds, profiles, Long.MAX_VALUE, 0, false, Listener.NONE);
         }
 
         public static Options defaults() {
@@ -64,7 +65,23 @@ public final class Analyzer {
         }
     }
 
+    /** Told what the analysis is doing, for a progress line and for results shown as they come. */
+    public interface Listener {
+        Listener NONE = new Listener() { };
+
+        /** A stage (or a case or sweep within the numeric stage) starts. */
+        default void stage(String file, String what) { }
+
+        /** Units are checked and the file has no message at all: its unit checks are final. */
+        default void unitsChecked(Model model, List<Check> unitChecks) { }
+
+        /** The file's analysis is complete. */
+        default void finished(String file) { }
+    }
+
     private final Options options;
+    /** The file being analysed, for the listener. */
+    private volatile String current = "";
 
     public Analyzer(Options options) {
         this.options = options;
@@ -116,6 +133,9 @@ public final class Analyzer {
         List<dev.plumb.lang.Diagnostic> found = new ArrayList<>(model.diagnostics());
         List<dev.plumb.numeric.Sequences.Result> sweeps = new ArrayList<>();
         List<String> skipped = new ArrayList<>();
+        String file = source.path();
+        current = file;
+        if (!diagnostics.hasInputErrors() && model.diagnostics().isEmpty()) options.listener().unitsChecked(model, model.unitChecks());
         if (!diagnostics.hasInputErrors()) {
             SymbolicEngine.prepare(model);
             Map<String, Expr> closedForms = new LinkedHashMap<>();
@@ -133,7 +153,8 @@ public final class Analyzer {
                 undecided(model, checks, options.expired() ? "not reached within the run's --timeout" : "the symbolic engine stopped on this file");
             }
             CaseAnalysis cases = new CaseAnalysis(model, closedForms, notes);
-            NumericResult numeric = guarded(skipped, "numeric", notes, () -> NumericEngine.run(model, closedForms, NumericOptions.defaults()));
+            NumericResult numeric = guarded(skipped, "numeric", notes, () -> NumericEngine.run(model, closedForms, NumericOptions.defaults(),
+                    what -> options.listener().stage(file, "numeric: " + what)));
             if (numeric != null) {
                 checks.addAll(numeric.checks());
                 notes.addAll(numeric.notes());
@@ -172,6 +193,7 @@ public final class Analyzer {
         }
         found.sort(java.util.Comparator.comparingInt((dev.plumb.lang.Diagnostic d) -> d.span().line())
                 .thenComparingInt(d -> d.span().column()));
+        options.listener().finished(file);
         return new Analysis(source, model, found, checks, derived, tables, scales, notes, sweeps);
     }
 
@@ -186,6 +208,7 @@ public final class Analyzer {
                     + Double.toString(options.timeoutSeconds()).replaceAll("\\.0$", "") + " s; its checks are undecided");
             return null;
         }
+        options.listener().stage(current, stage);
         try {
             return work.get();
         } catch (RuntimeException | StackOverflowError | OutOfMemoryError e) {

@@ -43,11 +43,14 @@ public final class CheckCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        Analyzer analyzer = analysis.analyzer(spec.commandLine(), false);
         List<Analysis> results = new ArrayList<>();
         int status = 0;
         TextReport text = new TextReport(noColor ? Style.PLAIN : Style.detect());
+        // On a terminal: the unit checks as soon as they are final, and a progress line for long stages.
+        TerminalProgress progress = format == Format.text && TerminalProgress.wanted() ? new TerminalProgress(out, err, text) : null;
+        Analyzer analyzer = analysis.analyzer(spec.commandLine(), false, progress != null ? progress : Analyzer.Listener.NONE);
         for (Path f : files) {
+            if (progress != null) progress.reset();
             Analysis a = analysis.withinTimeout(() -> analyze(analyzer, f), f.toString(), err);
             if (a == null) return 1;
             results.add(a);
@@ -56,7 +59,7 @@ public final class CheckCommand implements Callable<Integer> {
                 // Located messages go to standard error, verdicts and tables to standard output.
                 err.print(text.diagnostics(a));
                 err.flush();
-                out.print(text.results(a, analysis.strict));
+                out.print(text.results(a, analysis.strict, progress != null && progress.unitsShown()));
                 out.flush();
             }
         }

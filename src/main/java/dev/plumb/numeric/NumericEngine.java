@@ -118,6 +118,12 @@ public final class NumericEngine {
      * ExprPrinter ("P(0)", "m(R)", "xi1") to its closed form in parameters and constants; may be empty.
      */
     public static NumericResult run(Model model, Map<String, Expr> closedForms, NumericOptions options) {
+        return run(model, closedForms, options, what -> { });
+    }
+
+    /** As {@link #run(Model, Map, NumericOptions)}, telling {@code progress} which case or sweep is being solved. */
+    public static NumericResult run(Model model, Map<String, Expr> closedForms, NumericOptions options,
+                                    java.util.function.Consumer<String> progress) {
         List<CaseResult> cases = new ArrayList<>();
         List<Check> checks = new ArrayList<>();
         List<String> notes = new ArrayList<>();
@@ -135,6 +141,7 @@ public final class NumericEngine {
         }
         Map<String, Wanted> wanted = wanted(model);
         for (dev.plumb.model.CaseValues c : all) {
+            progress.accept(implicit(model) ? "solving" : "case " + c.label());
             List<Stmt.Expect> expects = model.caseExpects().stream()
                     .filter(e -> e.caseName() == null ? c.label().equals(IMPLICIT_CASE) || model.cases().size() <= 1
                             : e.caseName().equals(c.label())).toList();
@@ -170,7 +177,7 @@ public final class NumericEngine {
             for (Stmt.Expect e : expects) checks.add(expect(model, c, e, solution, tight, diagnostics));
             cases.add(new CaseResult(c.label(), solution.method(), rows, null));
         }
-        List<Sequences.Result> sequences = Sequences.run(model, closedForms, options, checks);
+        List<Sequences.Result> sequences = Sequences.run(model, closedForms, options, checks, progress);
         return new NumericResult(cases, checks, notes, diagnostics, sequences);
     }
 

@@ -74,9 +74,13 @@ public final class Sequences {
     }
 
     /** Runs every sweep of the model; the extremum expectations' checks are added to {@code checks}. */
-    public static List<Result> run(Model model, Map<String, Expr> closedForms, NumericOptions options, List<Check> checks) {
+    public static List<Result> run(Model model, Map<String, Expr> closedForms, NumericOptions options, List<Check> checks,
+                                   java.util.function.Consumer<String> progress) {
         List<Result> out = new ArrayList<>();
-        for (SweepSpec spec : model.sweeps()) out.add(run(model, spec, closedForms, options, checks));
+        for (SweepSpec spec : model.sweeps()) {
+            progress.accept("sweep " + spec.label() + " (" + spec.size() + " models)");
+            out.add(run(model, spec, closedForms, options, checks));
+        }
         return out;
     }
 

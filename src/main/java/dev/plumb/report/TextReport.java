@@ -40,17 +40,23 @@ public final class TextReport {
 
     /** The verdicts, closed forms, case tables and summary line (for standard output). */
     public String results(Analysis a, boolean strict) {
+        return results(a, strict, false);
+    }
+
+    /**
+     * As {@link #results(Analysis, boolean)}; with {@code unitsShown} the header and the unit checks were
+     * printed already, as they came ({@link #header} and {@link #check}), and are left out.
+     */
+    public String results(Analysis a, boolean strict, boolean unitsShown) {
         StringBuilder out = new StringBuilder();
-        String title = Style.inert(a.model() != null ? a.model().title() : "");
-        out.append(style.bold(a.source().path())).append(title.isEmpty() || title.equals(a.source().path()) ? "" : "  " + title)
-                .append('\n');
+        if (!unitsShown) out.append(header(a.source().path(), a.model()));
         if (a.hasInputErrors()) {
             out.append("  the input could not be understood; fix the errors reported for it and run again\n");
             return out.toString();
         }
         for (Check c : a.checks()) {
-            out.append(String.format(Locale.ROOT, "  %-9s %-22s %s  %s%n", c.kind(), Style.inert(c.label()), status(c.status()),
-                    Style.inert(c.message()) + (c.factor() != null && !c.message().contains("factor") ? " (factor " + c.factor() + ")" : "")));
+            if (unitsShown && c.kind().equals("units")) continue;
+            out.append(check(c));
         }
         if (!a.derived().isEmpty()) {
             out.append("\n  closed forms\n");
@@ -147,6 +153,18 @@ public final class TextReport {
             String curve = AsciiCurve.draw(x, y, Style.inert(xLabel), Style.inert(yLabel) + " against " + Style.inert(xLabel), "    ");
             if (!curve.isEmpty()) out.append('\n').append(curve);
         }
+    }
+
+    /** The file's first line: its path and title. */
+    public String header(String path, dev.plumb.model.Model model) {
+        String title = Style.inert(model != null ? model.title() : "");
+        return style.bold(path) + (title.isEmpty() || title.equals(path) ? "" : "  " + title) + "\n";
+    }
+
+    /** One check's line. */
+    public String check(Check c) {
+        return String.format(Locale.ROOT, "  %-9s %-22s %s  %s%n", c.kind(), Style.inert(c.label()), status(c.status()),
+                Style.inert(c.message()) + (c.factor() != null && !c.message().contains("factor") ? " (factor " + c.factor() + ")" : ""));
     }
 
     private String summary(Analysis a, boolean strict) {
