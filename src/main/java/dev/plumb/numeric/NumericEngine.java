@@ -230,8 +230,11 @@ public final class NumericEngine {
             closed = null;
             source = null;
         }
-        Double rel = closed == null ? null : closed != 0 ? Math.abs(numeric - closed) / Math.abs(closed)
-                : numeric == 0 ? 0.0 : null;
+        // A closed form of 0 has no relative difference unless the numeric value is 0 too (boxed
+        // explicitly: a conditional mixing double and a null Double would unbox the null).
+        Double rel = null;
+        if (closed != null && closed != 0) rel = Math.abs(numeric - closed) / Math.abs(closed);
+        else if (closed != null && numeric == 0) rel = 0.0;
         String unit = UnitCatalog.siName(model.dimensionOf(w.expr()));
         double factor = 1.0;
         if (w.shownUnit() != null) {
