@@ -68,7 +68,10 @@ public final class Lexer {
                 if (isDigit(ch) || (ch == '.' && isDigit(peek()))) number(start);
                 else if (isIdentStart(ch)) identifier(start);
                 else {
-                    error(start, 1, "unexpected character '" + ch + "'");
+                    // A run of characters the language has no use for (binary bytes, a terminal escape) is one mistake.
+                    while (pos < src.length() && unexpected(src.charAt(pos))) pos++;
+                    error(start, pos - start, pos - start == 1 ? "unexpected character '" + ch + "'"
+                            : (pos - start) + " unexpected characters in a row, the first '" + ch + "'");
                 }
             }
         }
@@ -160,6 +163,11 @@ public final class Lexer {
     private char peekAt(int ahead) {
         int i = pos + ahead;
         return i < src.length() ? src.charAt(i) : '\0';
+    }
+
+    /** Whether a character can start no token and is not white space. */
+    private static boolean unexpected(char c) {
+        return "(),:=~%'*/^±+-<>[\"#. \t\r\n".indexOf(c) < 0 && !isDigit(c) && !isIdentStart(c);
     }
 
     private static boolean isDigit(char c) {
