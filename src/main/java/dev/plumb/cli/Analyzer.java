@@ -110,7 +110,8 @@ public final class Analyzer {
         java.nio.charset.CoderResult result = decoder.decode(in, text, true);
         if (result.isError()) {
             // Located at the first byte that is not UTF-8, counted in lines and characters decoded so far.
-            String before = text.flip().toString();
+            // Line endings are read as SourceFile reads them (a lone CR ends a line too), so the place is where an editor shows it.
+            String before = new SourceFile(name, text.flip().toString()).text();
             int line = 1 + (int) before.chars().filter(c -> c == '\n').count();
             int column = before.length() - (before.lastIndexOf('\n') + 1) + 1;
             return unreadable(new SourceFile(name, before), Span.at(line, column, 1), String.format(java.util.Locale.ROOT,

@@ -13,10 +13,8 @@ import dev.plumb.report.Style;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -65,6 +63,7 @@ public final class ReportCommand implements Callable<Integer> {
         a.diagnostics().forEach(d -> err.print(printer.print(a.source(), d)));
         err.flush();
         if (a.hasInputErrors() || a.model() == null) {
+            finishInterruptedReplacement(err);
             err.println("plumb: no report written: " + file + " could not be understood");
             return 2;
         }
@@ -92,13 +91,22 @@ public final class ReportCommand implements Callable<Integer> {
                         + "choose another --out folder");
                 return 2;
             }
-            write(out, files);
+            DocumentSet.replace(out, files);
         } catch (IOException e) {
-            err.println("plumb: cannot write the report to " + out + ": " + e.getMessage());
+            err.println("plumb: cannot write the report to " + out + ": " + reason(e));
             return 2;
         }
         files.keySet().forEach(name -> stdout.println("wrote " + out.resolve(name)));
         return a.exitStatus(analysis.strict);
+    }
+
+    /** A run that writes nothing still leaves the folder whole: a replacement a killed run began is finished. */
+    private void finishInterruptedReplacement(PrintWriter err) {
+        try {
+            DocumentSet.recover(out);
+        } catch (IOException e) {
+            err.println("plumb: cannot finish the replacement a stopped run began in " + out + ": " + reason(e));
+        }
     }
 
     /** The name of an output that would replace the input file itself (same file, however it is reached), or null. */
@@ -120,34 +128,14 @@ public final class ReportCommand implements Callable<Integer> {
         return dot > 0 ? name.substring(0, dot) : name;
     }
 
-    /**
-     * Writes every file of the set next to its target first, then moves them all into place, so a
-     * failure while writing leaves the old set whole and the switch from old to new is as short as it
-     * can be. Temporary files are created the ordinary way (their mode follows the umask, not 0600),
-     * removed on every path that can run, and any left by a run that was killed are removed first.
-     */
-    private static void write(Path dir, Map<String, byte[]> files) throws IOException {
-        Files.createDirectories(dir);
-        try (var old = Files.newDirectoryStream(dir, ".plumb-*.tmp")) {
-            for (Path leftover : old) Files.deleteIfExists(leftover);
+    /** Why an I/O operation failed, in words: the exception's own message is often only the path. */
+    private static String reason(IOException e) {
+        if (e instanceof java.nio.file.AccessDeniedException a) return "permission denied: " + a.getFile();
+        if (e instanceof java.nio.file.NoSuchFileException n) return "no such file or folder: " + n.getFile();
+        if (e instanceof java.nio.file.FileAlreadyExistsException f) return "already exists: " + f.getFile();
+        if (e instanceof java.nio.file.FileSystemException f && f.getReason() != null) {
+            return f.getReason() + (f.getFile() == null ? "" : ": " + f.getFile());
         }
-        Map<Path, Path> ready = new LinkedHashMap<>();
-        String run = Long.toHexString(System.nanoTime());
-        try {
-            for (Map.Entry<String, byte[]> f : files.entrySet()) {
-                Path tmp = dir.resolve(".plumb-" + run + "-" + ready.size() + ".tmp");
-                ready.put(tmp, dir.resolve(f.getKey()));
-                Files.write(tmp, f.getValue(), java.nio.file.StandardOpenOption.CREATE_NEW, java.nio.file.StandardOpenOption.WRITE);
-            }
-            for (Map.Entry<Path, Path> r : ready.entrySet()) {
-                try {
-                    Files.move(r.getKey(), r.getValue(), StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-                } catch (AtomicMoveNotSupportedException e) {
-                    Files.move(r.getKey(), r.getValue(), StandardCopyOption.REPLACE_EXISTING);
-                }
-            }
-        } finally {
-            for (Path tmp : ready.keySet()) Files.deleteIfExists(tmp);
-        }
+        return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
     }
 }

@@ -68,7 +68,14 @@ public final class Lexer {
                 if (isDigit(ch) || (ch == '.' && isDigit(peek()))) number(start);
                 else if (isIdentStart(ch)) identifier(start);
                 else {
-                    error(start, 1, "unexpected character '" + ch + "'");
+                    // A run of characters the language has no use for (binary bytes, a terminal escape) is one mistake.
+                    for (boolean more = true; more; ) {
+                        if (src.charAt(pos - 1) == '\u001b' && peek() == '[') controlSequence();
+                        more = pos < src.length() && unexpected(src.charAt(pos));
+                        if (more) pos++;
+                    }
+                    error(start, pos - start, pos - start == 1 ? "unexpected character '" + ch + "'"
+                            : (pos - start) + " unexpected characters in a row, the first '" + ch + "'");
                 }
             }
         }
@@ -160,6 +167,18 @@ public final class Lexer {
     private char peekAt(int ahead) {
         int i = pos + ahead;
         return i < src.length() ? src.charAt(i) : '\0';
+    }
+
+    /** The rest of a terminal control sequence after ESC: '[', parameter and intermediate bytes, one final byte (ECMA-48). */
+    private void controlSequence() {
+        pos++;
+        while (pos < src.length() && src.charAt(pos) >= 0x20 && src.charAt(pos) <= 0x3F) pos++;
+        if (pos < src.length() && src.charAt(pos) >= 0x40 && src.charAt(pos) <= 0x7E) pos++;
+    }
+
+    /** Whether a character can start no token and is not white space. */
+    private static boolean unexpected(char c) {
+        return "(),:=~%'*/^±+-<>[\"#. \t\r\n".indexOf(c) < 0 && !isDigit(c) && !isIdentStart(c);
     }
 
     private static boolean isDigit(char c) {

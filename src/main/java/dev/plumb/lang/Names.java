@@ -12,14 +12,16 @@ public final class Names {
     public static Optional<String> closest(String name, Collection<String> candidates) {
         String best = null;
         int bestDistance = Integer.MAX_VALUE;
+        int allowed = name.length() <= 3 ? 1 : 2;
         for (String c : candidates) {
+            // Names that differ in length by more than the allowance are never close (and a name of megabytes costs nothing).
+            if (Math.abs(c.length() - name.length()) > allowed) continue;
             int d = c.equalsIgnoreCase(name) ? 0 : editDistance(c, name);
             if (d < bestDistance) {
                 best = c;
                 bestDistance = d;
             }
         }
-        int allowed = name.length() <= 3 ? 1 : 2;
         return bestDistance <= allowed ? Optional.ofNullable(best) : Optional.empty();
     }
 

@@ -39,6 +39,10 @@ final class IntervalPoints {
         IntervalPoints points = new IntervalPoints(symbols, coord, diagnostics);
         List<CaseValues> all = new ArrayList<>(cases);
         if (all.isEmpty() && !hasFreeParams) all.add(new CaseValues("", dev.plumb.lang.Span.NONE, Map.of(), Map.of()));
+        for (CaseValues c : all) {
+            // Points are not checked against ends that are themselves wrong: that would be one mistake told twice.
+            if (points.endsOutOfOrder(c)) return;
+        }
         Set<Expr.Call> reported = new HashSet<>();
         for (Stmt s : statements) {
             List<Expr.Call> calls = new ArrayList<>();
@@ -85,6 +89,37 @@ final class IntervalPoints {
             if (s instanceof Symbol.Definition d && visiting.add(name) && readsProfile(d.body(), visiting)) return true;
         }
         return false;
+    }
+
+    /**
+     * Reports an interval whose end is not past its start in case {@code c} (reversed, or empty); true
+     * when it did. The ends are written smaller first: the direction of integration is plumb's choice,
+     * and the relations, not the order of the ends, say which way a profile falls.
+     */
+    private boolean endsOutOfOrder(CaseValues c) {
+        ConstantEvaluator values = new ConstantEvaluator(symbols::get, c.values());
+        double a, b;
+        try {
+            a = values.evaluate(coord.from());
+            b = values.evaluate(coord.to());
+        } catch (ConstantEvaluator.NotConstant dependsOnAnUnknown) {
+            return false;
+        }
+        if (!Double.isFinite(a) || !Double.isFinite(b) || b > a) return false;
+        String where = c.label().isEmpty() ? "" : " in case '" + c.label() + "'";
+        String unit = dev.plumb.units.UnitCatalog.siName(coord.dimension());
+        unit = unit.equals("1") ? "" : " " + unit;
+        String from = ExprPrinter.print(coord.from()), to = ExprPrinter.print(coord.to());
+        dev.plumb.lang.Span ends = coord.from().span().to(coord.to().span());
+        if (b == a) {
+            diagnostics.error(ends, "the interval of '" + coord.name() + "' is empty: it starts and ends at " + number(a) + unit + where,
+                    "a profile needs an interval to hold on; give the end a value past the start");
+        } else {
+            diagnostics.error(ends, "the interval of '" + coord.name() + "' runs backwards: from " + from + " = " + number(a) + unit
+                            + " down to " + to + " = " + number(b) + unit + where,
+                    "write the smaller end first: from " + to + " to " + from + " (the relations, not the order of the ends, say which way a profile falls)");
+        }
+        return true;
     }
 
     /** Reports the call when its point lies outside the interval in case {@code c}; true when it did. */

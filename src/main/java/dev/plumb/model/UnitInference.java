@@ -249,8 +249,11 @@ final class UnitInference {
         }
         if (c.order() > 0) {
             String what = decl instanceof Stmt.Let ? "a definition ('let')" : "not an unknown profile";
+            String at = coordinate != null ? coordinate
+                    : c.args().size() == 1 && c.args().get(0) instanceof Expr.Name n ? n.id() : "r";
             diagnostics.error(c.calleeSpan(), "only unknown profiles can be differentiated; '" + c.callee() + "' is " + what,
-                    "declare it with 'unknown " + c.callee() + "(" + coordinate + ")' and give its relation instead");
+                    (coordinate == null ? "declare a coordinate (coord " + at + " ... from ... to ...), then " : "")
+                            + "declare it with 'unknown " + c.callee() + "(" + at + ")' and give its relation instead");
             return solver.wildcard();
         }
         if (decl instanceof Stmt.Let l) {

@@ -37,6 +37,7 @@ public final class JsonReport {
             m.put("kind", c.kind());
             m.put("label", c.label());
             m.put("line", c.span().line());
+            m.put("column", c.span().column());
             m.put("status", c.status().word().replace(' ', '_'));
             m.put("message", c.message());
             if (c.factor() != null) m.put("factor", c.factor());

@@ -17,9 +17,13 @@ public record Style(boolean color) {
         return color ? "\u001b[" + code + "m" + s + "\u001b[0m" : s;
     }
 
+    /** The longest run of non-blank characters, and the longest text, shown whole. */
+    private static final int LONGEST_WORD = 300, LONGEST_TEXT = 2000;
+
     /**
      * Text from the input made inert for a terminal: control characters (an escape sequence in a title
-     * could recolour or rewrite what the run appears to say) are shown as \\uXXXX.
+     * could recolour or rewrite what the run appears to say) are shown as \\uXXXX, and a name, number
+     * or title of megabytes is shown by its ends with the count of what is left out between them.
      */
     public static String inert(String s) {
         if (s == null) return "";
@@ -33,7 +37,23 @@ public record Style(boolean color) {
                 else out.append(c);
             }
         }
-        return out == null ? s : out.toString();
+        return abbreviated(out == null ? s : out.toString());
+    }
+
+    private static String abbreviated(String s) {
+        if (s.length() <= LONGEST_WORD) return s;
+        StringBuilder out = new StringBuilder();
+        for (int i = 0; i < s.length(); ) {
+            int j = i;
+            while (j < s.length() && !Character.isWhitespace(s.charAt(j))) j++;
+            out.append(j - i > LONGEST_WORD ? ends(s.substring(i, j), 100, 40) : s.substring(i, j));
+            for (i = j; i < s.length() && Character.isWhitespace(s.charAt(i)); i++) out.append(s.charAt(i));
+        }
+        return out.length() > LONGEST_TEXT ? ends(out.toString(), 1500, 300) : out.toString();
+    }
+
+    private static String ends(String s, int head, int tail) {
+        return s.substring(0, head) + "...[" + (s.length() - head - tail) + " more characters]..." + s.substring(s.length() - tail);
     }
 
     /** A quoted source line made inert with its columns kept: each control character becomes '?'. */

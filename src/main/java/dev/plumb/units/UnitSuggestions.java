@@ -20,10 +20,17 @@ final class UnitSuggestions {
       Map.entry("dyne", "dyn"), Map.entry("ergs", "erg"), Map.entry("Kelvin", "K"),
       Map.entry("degK", "K"), Map.entry("micron", "µm"), Map.entry("kph", "km/h"));
 
+  /** Longer than any unit symbol or two run together: no suggestion is looked for. */
+  private static final int LONGEST_SYMBOL = 40;
+
   private UnitSuggestions() {}
 
   /** The error for the unknown symbol {@code symbol} found at {@code offset}. */
   static UnitException unknown(String symbol, int offset) {
+    // No unit symbol is near one this long, and the searches below grow with its square.
+    if (symbol.length() > LONGEST_SYMBOL) {
+      return new UnitException("unknown unit '" + symbol + "'", offset, symbol.length());
+    }
     List<String> near = likelyReadings(symbol);
     if (near.isEmpty()) {
       String prefixProblem = prefixProblem(symbol);
