@@ -66,7 +66,7 @@ public final class LatexPrinter {
         StringBuilder out = new StringBuilder();
         s.codePoints().forEach(c -> {
             if (c < 0x80) out.append(escapeAscii(Character.toString(c)));
-            else if (GREEK_LETTERS.containsKey(c)) out.append(GREEK_LETTERS.get(c)).append("{}");
+            else if (GREEK_LETTERS.containsKey(c)) out.append(GREEK_LETTERS.get(c)).append(GREEK_LETTERS.get(c).startsWith("\\") ? "{}" : "");
             else if (isLatin(c)) out.append("\\text{").appendCodePoint(c).append('}');
             else out.append("\\text{").append(codeOf(c)).append('}');
         });
