@@ -65,17 +65,21 @@ public final class Lexer {
             case '[' -> unit(start);
             case '"' -> string(start);
             default -> {
+                int cp = src.codePointAt(start);
                 if (isDigit(ch) || (ch == '.' && isDigit(peek()))) number(start);
-                else if (isIdentStart(ch)) identifier(start);
-                else {
+                else if (isIdentStart(cp)) {
+                    pos = start + Character.charCount(cp);
+                    identifier(start);
+                } else {
                     // A run of characters the language has no use for (binary bytes, a terminal escape) is one mistake.
+                    pos = start + Character.charCount(cp);
                     for (boolean more = true; more; ) {
                         if (src.charAt(pos - 1) == '\u001b' && peek() == '[') controlSequence();
                         more = pos < src.length() && unexpected(src.charAt(pos));
                         if (more) pos++;
                     }
-                    error(start, pos - start, pos - start == 1 ? "unexpected character '" + ch + "'"
-                            : (pos - start) + " unexpected characters in a row, the first '" + ch + "'");
+                    error(start, pos - start, pos - start == Character.charCount(cp) ? "unexpected character '" + Character.toString(cp) + "'"
+                            : (pos - start) + " unexpected characters in a row, the first '" + Character.toString(cp) + "'");
                 }
             }
         }
@@ -101,9 +105,14 @@ public final class Lexer {
         add(TokenType.NUMBER, src.substring(start, pos), start);
     }
 
+    /**
+     * A name: letters of any script (ρ, λ, Γ, é...), digits and underscores, with combining marks
+     * (ρ̄). The Greek letter π alone is the constant pi.
+     */
     private void identifier(int start) {
-        while (isIdentPart(peek())) pos++;
-        add(TokenType.IDENT, src.substring(start, pos), start);
+        while (pos < src.length() && isIdentPart(src.codePointAt(pos))) pos += Character.charCount(src.codePointAt(pos));
+        String text = src.substring(start, pos);
+        add(TokenType.IDENT, text.equals("\u03c0") ? "pi" : text, start);
     }
 
     /**
@@ -185,11 +194,12 @@ public final class Lexer {
         return c >= '0' && c <= '9';
     }
 
-    private static boolean isIdentStart(char c) {
+    private static boolean isIdentStart(int c) {
         return Character.isLetter(c) || c == '_';
     }
 
-    private static boolean isIdentPart(char c) {
-        return Character.isLetterOrDigit(c) || c == '_';
+    private static boolean isIdentPart(int c) {
+        int type = Character.getType(c);
+        return Character.isLetterOrDigit(c) || c == '_' || type == Character.NON_SPACING_MARK || type == Character.COMBINING_SPACING_MARK;
     }
 }

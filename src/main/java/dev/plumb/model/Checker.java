@@ -120,6 +120,10 @@ public final class Checker {
                 diagnostics.warning(span, "'" + name + "' shadows the built-in constant " + name + " ("
                         + Constants.lookup(name).get().description() + ")", "in this file '" + name + "' means your declaration");
             }
+            if (BuiltinFunction.lookup(name).isPresent()) {
+                diagnostics.warning(span, "'" + name + "' shadows the built-in function " + name + " ("
+                        + BuiltinFunction.lookup(name).get().description + ")", "in this file '" + name + "' means your declaration");
+            }
             declarations.put(name, s);
         }
     }
@@ -470,7 +474,13 @@ public final class Checker {
                 diagnostics.error(e.lhs().span(), "this expectation needs 'at CASE': the file has free parameters",
                         "e.g. expect " + labelOf(e.label(), e.span()) + ": " + ExprPrinter.print(e.lhs()) + " at "
                                 + (caseNames.isEmpty() ? "sun" : caseNames.iterator().next()) + " = ...");
-            } else if (e.caseName() != null && !caseNames.contains(e.caseName())) {
+            } else if (e.caseName() != null && !caseNames.contains(e.caseName())
+                    && !(e.caseName().equals(CaseValues.IMPLICIT) && !hasFree && caseNames.isEmpty())) {
+                if (!hasFree && caseNames.isEmpty()) {
+                    diagnostics.error(e.caseSpan(), "there is no case named '" + e.caseName() + "': the file has no free parameters, "
+                            + "so its one case is '" + CaseValues.IMPLICIT + "'", "write 'at " + CaseValues.IMPLICIT + "', or leave 'at' out");
+                    continue;
+                }
                 diagnostics.error(e.caseSpan(), "there is no case named '" + e.caseName() + "'"
                         + dev.plumb.lang.Names.closest(e.caseName(), caseNames).map(s -> "; did you mean '" + s + "'?").orElse(""));
             }

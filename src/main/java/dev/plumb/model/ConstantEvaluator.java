@@ -75,14 +75,24 @@ public final class ConstantEvaluator {
     }
 
     private double call(Expr.Call c) throws NotConstant {
-        if (c.order() == 0 && BuiltinFunction.lookup(c.callee()).isPresent() && c.args().size() == 1) {
+        Symbol s = lookup.apply(c.callee());
+        // A declaration of the same name shadows a built-in function.
+        if (s == null && c.order() == 0 && BuiltinFunction.lookup(c.callee()).isPresent() && c.args().size() == 1) {
             return BuiltinFunction.lookup(c.callee()).get().apply(evaluate(c.args().get(0)));
         }
-        Symbol s = lookup.apply(c.callee());
-        if (s instanceof Symbol.Definition d && c.order() == 0 && d.params().size() == c.args().size()) {
+        if (s instanceof Symbol.Definition d && d.params().size() == c.args().size()) {
+            Expr body = d.body();
+            if (c.order() > 0) {
+                try {
+                    body = new LetDerivative(n -> lookup.apply(n) instanceof Symbol.Definition f ? new LetDerivative.Definition(f.params(), f.body()) : null,
+                            n -> lookup.apply(n) != null && !(lookup.apply(n) instanceof Symbol.Builtin), null, c.span()).derivative(d.name(), c.order());
+                } catch (LetDerivative.NotDifferentiable ex) {
+                    throw new NotConstant(c, ex.getMessage());
+                }
+            }
             Map<String, Double> inner = new java.util.HashMap<>(bindings);
             for (int i = 0; i < d.params().size(); i++) inner.put(d.params().get(i), evaluate(c.args().get(i)));
-            return new ConstantEvaluator(lookup, inner).evaluate(d.body());
+            return new ConstantEvaluator(lookup, inner).evaluate(body);
         }
         throw new NotConstant(c, "'" + c.callee() + "(...)' has no fixed value here");
     }

@@ -247,13 +247,14 @@ final class UnitInference {
             DimForm f = symbolForm(c.callee());
             return f.div(symbolForm(coordinate).pow(Rational.of(c.order())));
         }
+        if (c.order() > 0 && decl instanceof Stmt.Let l) return letDerivative(c, l, args);
         if (c.order() > 0) {
-            String what = decl instanceof Stmt.Let ? "a definition ('let')" : "not an unknown profile";
+            String what = decl == null ? "not declared" : "not a function of the coordinate";
             String at = coordinate != null ? coordinate
                     : c.args().size() == 1 && c.args().get(0) instanceof Expr.Name n ? n.id() : "r";
-            diagnostics.error(c.calleeSpan(), "only unknown profiles can be differentiated; '" + c.callee() + "' is " + what,
-                    (coordinate == null ? "declare a coordinate (coord " + at + " ... from ... to ...), then " : "")
-                            + "declare it with 'unknown " + c.callee() + "(" + at + ")' and give its relation instead");
+            diagnostics.error(c.calleeSpan(), "only unknown profiles and definitions of the coordinate can be differentiated; '"
+                    + c.callee() + "' is " + what, (coordinate == null ? "declare a coordinate (coord " + at + " ... from ... to ...), then " : "")
+                    + "e.g. unknown " + c.callee() + "(" + at + ") [Pa] with its relation, or let " + c.callee() + "(" + at + ") = ...");
             return solver.wildcard();
         }
         if (decl instanceof Stmt.Let l) {
@@ -275,6 +276,46 @@ final class UnitInference {
             diagnostics.error(c.calleeSpan(), "'" + c.callee() + "' is not a function or a profile and cannot be called");
         }
         return solver.wildcard();
+    }
+
+    /**
+     * {@code rho'(r)} for {@code let rho(r) = ...}: the definition's unit over its argument's, once per
+     * prime. A definition without an argument has no derivative (an error); one that does not vary
+     * with its argument has the derivative 0 (a warning, as it is likely a slip).
+     */
+    private DimForm letDerivative(Expr.Call c, Stmt.Let l, List<DimForm> args) {
+        String primes = "'".repeat(c.order());
+        if (l.params().isEmpty()) {
+            diagnostics.error(c.calleeSpan(), "'" + l.name() + "' is not a function: it is defined without an argument (line "
+                    + l.span().line() + "), so " + ExprPrinter.print(c) + " has no meaning",
+                    "to differentiate it, define it as a function of the coordinate: let " + l.name() + "("
+                            + (coordinate == null ? "r" : coordinate) + ") = ...");
+            return solver.wildcard();
+        }
+        if (l.params().size() != 1) {
+            diagnostics.error(c.calleeSpan(), "'" + l.name() + "' takes " + l.params().size()
+                    + " arguments; only a definition of one argument can be differentiated");
+            return solver.wildcard();
+        }
+        if (args.size() != 1) {
+            diagnostics.error(c.span(), "'" + l.name() + "' takes 1 argument, found " + args.size());
+            return solver.wildcard();
+        }
+        DimForm param = letParams(l).get(0);
+        mismatch(args.get(0), param, c.args().get(0).span(),
+                "the point where " + l.name() + primes + " is taken must have the unit of its argument '" + l.params().get(0) + "'",
+                c.args().get(0), null);
+        try {
+            LetDerivative d = new LetDerivative(n -> declarations.get(n) instanceof Stmt.Let let
+                    ? new LetDerivative.Definition(let.params(), let.body()) : null, declarations::containsKey, coordinate, c.span());
+            if (!d.dependsOnArgument(l.name())) {
+                diagnostics.warning(c.calleeSpan(), "'" + l.name() + "' does not depend on its argument '" + l.params().get(0)
+                        + "', so " + ExprPrinter.print(c) + " is 0", "is the definition on line " + l.span().line() + " the one meant?");
+            }
+        } catch (LetDerivative.NotDifferentiable e) {
+            diagnostics.error(c.calleeSpan(), l.name() + primes + " cannot be written out: " + e.getMessage());
+        }
+        return symbolForm(l.name()).div(param.pow(Rational.of(c.order())));
     }
 
     /** Reports a mismatch of two forms at {@code span}; returns true when they differ. */

@@ -116,7 +116,7 @@ final class ExprCompiler {
         }
         if (s instanceof Symbol.Builtin b) return constant(b.constant().value());
         if (s instanceof Symbol.UnknownConstant u) return slot(slots.constant(u, n));
-        if (s instanceof Symbol.Definition d && d.params().isEmpty()) return share(d.name(), inline(d, Map.of(), n));
+        if (s instanceof Symbol.Definition d && d.params().isEmpty()) return share(d.name(), inline(d, d.body(), Map.of(), n));
         if (s instanceof Symbol.Profile p) {
             throw new SolveException(n.span(), "the profile '" + p.name() + "' needs its argument here, e.g. " + p.name() + "("
                     + model.coordinate().map(Symbol::name).orElse("r") + ")");
@@ -124,11 +124,11 @@ final class ExprCompiler {
         throw new SolveException(n.span(), "'" + n.id() + "' cannot be evaluated numerically here");
     }
 
-    private Evaluator inline(Symbol.Definition d, Map<String, Evaluator> args, Expr at) throws SolveException {
+    private Evaluator inline(Symbol.Definition d, Expr body, Map<String, Evaluator> args, Expr at) throws SolveException {
         // The checker rejects definition cycles; the depth guard keeps a missed one from overflowing the stack.
         if (++depth > 200) throw new SolveException(at.span(), "definitions nest too deeply at '" + d.name() + "'");
         try {
-            return compile(d.body(), args);
+            return compile(body, args);
         } finally {
             depth--;
         }
@@ -137,15 +137,12 @@ final class ExprCompiler {
     private Evaluator call(Expr.Call c, Map<String, Evaluator> args) throws SolveException {
         Symbol s = model.symbols().get(c.callee());
         if (s instanceof Symbol.Definition d) {
-            if (c.order() > 0) {
-                throw new SolveException(c.span(), "the numeric engine cannot differentiate the definition '" + d.name()
-                        + "'; write the derivative out, or make '" + d.name() + "' an unknown with its own relation");
-            }
+            Expr body = c.order() > 0 ? derivative(model, d, c) : d.body();
             if (d.params().size() != c.args().size()) {
                 throw new SolveException(c.span(), "'" + d.name() + "' takes " + d.params().size() + " argument(s)");
             }
             Map<String, Evaluator> inner = new HashMap<>();
-            StringBuilder key = new StringBuilder(d.name()).append('(');
+            StringBuilder key = new StringBuilder(d.name()).append("'".repeat(c.order())).append('(');
             for (int i = 0; i < d.params().size(); i++) {
                 Evaluator a = compile(c.args().get(i), args);
                 inner.put(d.params().get(i), a);
@@ -153,7 +150,7 @@ final class ExprCompiler {
             }
             String k = key.toString();
             Evaluator known = shared.get(k);
-            return known != null ? known : share(k, inline(d, inner, c));
+            return known != null ? known : share(k, inline(d, body, inner, c));
         }
         if (s instanceof Symbol.Profile p) {
             if (c.args().size() != 1) throw new SolveException(c.span(), "'" + p.name() + "' takes one argument");
@@ -176,6 +173,15 @@ final class ExprCompiler {
             return track(out, a);
         }
         throw new SolveException(c.calleeSpan(), "'" + c.callee() + "' cannot be called numerically here");
+    }
+
+    /** The body of {@code f'(a)}, {@code f''(a)}... for {@code let f(x) = ...}: the definition differentiated, to be evaluated like it. */
+    static Expr derivative(Model model, Symbol.Definition d, Expr.Call c) throws SolveException {
+        try {
+            return dev.plumb.model.LetDerivative.of(model, c.span()).derivative(d.name(), c.order());
+        } catch (dev.plumb.model.LetDerivative.NotDifferentiable ex) {
+            throw new SolveException(c.span(), ExprPrinter.print(c) + " cannot be evaluated: " + ex.getMessage());
+        }
     }
 
     /** Wraps a compiled definition so repeated uses in one evaluation compute it once. */

@@ -182,7 +182,16 @@ final class Formulation {
             Symbol s = model.symbols().get(c.callee());
             if (s instanceof Symbol.Profile) into.merge(c.callee(), c.order(), Math::max);
             if (s instanceof Symbol.Definition d && visiting.add(d.name())) {
-                collectOrders(model, d.body(), into, visiting);
+                Expr body = d.body();
+                if (c.order() > 0) {
+                    // The derivative of a definition that uses P(r) uses P'(r).
+                    try {
+                        body = ExprCompiler.derivative(model, d, c);
+                    } catch (SolveException notWritten) {
+                        // Reported where it is evaluated; the body's own orders stand in meanwhile.
+                    }
+                }
+                collectOrders(model, body, into, visiting);
                 visiting.remove(d.name());
             }
             c.args().forEach(a -> collectOrders(model, a, into, visiting));

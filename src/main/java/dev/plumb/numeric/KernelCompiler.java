@@ -147,7 +147,7 @@ final class KernelCompiler {
         if (e instanceof Evaluator.Pow n) return "Math.pow(" + java(n.a) + ", " + java(n.b) + ")";
         if (e instanceof Evaluator.Sqrt n) return "Math.sqrt(" + java(n.a) + ")";
         if (e instanceof Evaluator.Exp n) return "Math.exp(" + java(n.a) + ")";
-        if (e instanceof Evaluator.Function n) return "Math." + (n.fn.word.equals("log") ? "log" : n.fn.word) + "(" + java(n.a) + ")";
+        if (e instanceof Evaluator.Function n) return n.fn.javaMethod + "(" + java(n.a) + ")";
         if (e instanceof Evaluator.Branch n) {
             String cond = "(" + java(n.left) + " " + n.op.symbol + " " + java(n.right) + ")";
             String free = "(" + cond + " ? " + java(n.then) + " : " + java(n.otherwise) + ")";

@@ -25,7 +25,7 @@ import java.util.Map;
 public final class NumericEngine {
 
     /** The label of the one implicit case of a file without free parameters. */
-    public static final String IMPLICIT_CASE = "fixed";
+    public static final String IMPLICIT_CASE = dev.plumb.model.CaseValues.IMPLICIT;
 
     private NumericEngine() {
     }

@@ -94,14 +94,12 @@ final class PointEvaluator {
     private double call(Expr.Call c, Map<String, Double> args, int depth) throws SolveException {
         Symbol s = form.model.symbols().get(c.callee());
         if (s instanceof Symbol.Definition d) {
-            if (c.order() > 0) {
-                throw new SolveException(c.span(), "the numeric engine cannot differentiate the definition '" + d.name() + "'");
-            }
+            Expr body = c.order() > 0 ? ExprCompiler.derivative(form.model, d, c) : d.body();
             Map<String, Double> inner = new HashMap<>();
             for (int i = 0; i < d.params().size() && i < c.args().size(); i++) {
                 inner.put(d.params().get(i), eval(c.args().get(i), args, depth));
             }
-            return eval(d.body(), inner, depth + 1);
+            return eval(body, inner, depth + 1);
         }
         if (s instanceof Symbol.Profile p) {
             double x = eval(c.args().get(0), args, depth);

@@ -61,6 +61,8 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
         for (int j = 0; j < h; j++) first &= form.order[j] == 1;
         this.firstOrder = first;
         this.kernel = parts.kernel();
+        this.trial = new double[h];
+        Arrays.fill(trial, 1.0);
     }
 
     private static int[] highestIndex(Formulation form) {
@@ -202,11 +204,41 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
         int first = form.derivativeSlot(0);
         for (int j = 0; j < h; j++) f[first + j] = 0.0;
         double[] f0 = new double[h];
-        for (int i = 0; i < h; i++) f0[i] = residual[i].at(f);
+        double largest = 0;
+        for (int i = 0; i < h; i++) {
+            f0[i] = residual[i].at(f);
+            largest = Math.max(largest, Math.abs(f0[i]));
+        }
+        double[] d = solveLinear(f, f0, first);
+        // The residuals are linear in the highest derivatives, so any trial value gives their coefficients,
+        // but only up to rounding against the residual itself: a trial of 1 is lost in a residual of 1e18 (a
+        // mass gradient in kg/m). A trial about the size of the answer keeps that rounding at the answer's level.
+        boolean again = false;
+        for (int j = 0; j < h; j++) {
+            double size = Math.abs(d[j]);
+            if (!Double.isFinite(size)) {
+                if (largest > trial[j] && Double.isFinite(largest)) {
+                    trial[j] = largest;
+                    again = true;
+                }
+            } else if (size > 0 && (size > 1e3 * trial[j] || size < 1e-3 * trial[j])) {
+                trial[j] = size;
+                again = true;
+            }
+        }
+        if (again) d = solveLinear(f, f0, first);
+        for (int j = 0; j < h; j++) f[first + j] = d[j];
+        return d;
+    }
+
+    /** The trial value of each highest derivative used to read off its coefficients; kept from one evaluation to the next. */
+    private final double[] trial;
+
+    private double[] solveLinear(double[] f, double[] f0, int first) {
         double[][] jac = new double[h][h];
         for (int j = 0; j < h; j++) {
-            f[first + j] = 1.0;
-            for (int i = 0; i < h; i++) jac[i][j] = residual[i].at(f) - f0[i];
+            f[first + j] = trial[j];
+            for (int i = 0; i < h; i++) jac[i][j] = (residual[i].at(f) - f0[i]) / trial[j];
             f[first + j] = 0.0;
         }
         double[] d = new double[h];
@@ -221,7 +253,6 @@ final class RelationSystem implements FirstOrderDifferentialEquations {
                 Arrays.fill(d, Double.NaN);
             }
         }
-        for (int j = 0; j < h; j++) f[first + j] = d[j];
         return d;
     }
 

@@ -19,6 +19,19 @@ public final class DiagnosticPrinter {
     /** How many characters either side of the column a long line is quoted with. */
     private static final int WINDOW = 80;
 
+    /** How many columns the characters from index {@code from} to {@code to} of the line take on a terminal. */
+    private static int width(String line, int from, int to) {
+        int a = Math.min(from, line.length()), b = Math.min(to, line.length());
+        int w = Math.max(0, to - Math.max(from, line.length()));
+        for (int i = a; i < b; ) {
+            int c = line.codePointAt(i);
+            int type = Character.getType(c);
+            if (type != Character.NON_SPACING_MARK && type != Character.ENCLOSING_MARK) w++;
+            i += Character.charCount(c);
+        }
+        return w;
+    }
+
     public String print(SourceFile source, Diagnostic d) {
         StringBuilder out = new StringBuilder();
         Span s = d.span();
@@ -44,8 +57,9 @@ public final class DiagnosticPrinter {
             out.append("    ").append(line).append('\n');
             int end = s.endLine() == s.line() ? Math.max(start + 1, s.endColumn() - shift) : line.length() + 1;
             end = Math.min(end, Math.max(start + 1, line.length() + 1));
-            String carets = "^".repeat(end - start);
-            out.append("    ").append(" ".repeat(start - 1))
+            // Columns count UTF-16 units; on screen a letter beyond 16 bits (two units) or a combining mark takes one column or none.
+            String carets = "^".repeat(Math.max(1, width(line, start - 1, end - 1)));
+            out.append("    ").append(" ".repeat(width(line, 0, start - 1)))
                     .append(d.severity() == Severity.ERROR ? style.red(carets) : style.cyan(carets)).append('\n');
         }
         for (String detail : d.details()) {

@@ -27,20 +27,112 @@ public final class LatexPrinter {
         return print(e, 0);
     }
 
-    /** An identifier: Greek names become letters, a trailing number or {@code _suffix} a subscript. */
+    /** An identifier: Greek names (rho, or ρ itself) become letters, a trailing number or {@code _suffix} a subscript. */
     public static String name(String id) {
         Identifier.Parts parts = Identifier.split(id);
         String base = parts.base();
         String sub = parts.subscript();
-        String b = GREEK.getOrDefault(base, base.length() == 1 ? base : "\\mathit{" + escape(base) + "}");
+        String b = GREEK.getOrDefault(base, base.codePointCount(0, base.length()) == 1 ? mathText(base) : "\\mathit{" + mathText(base) + "}");
         if (sub == null) return b;
-        String s = GREEK.getOrDefault(sub, sub.chars().allMatch(Character::isDigit) ? sub : "\\mathrm{" + escape(sub) + "}");
+        String s = GREEK.getOrDefault(sub, sub.chars().allMatch(c -> c >= '0' && c <= '9') ? sub : "\\mathrm{" + mathText(sub) + "}");
         return b + "_{" + s + "}";
     }
 
+    /** LaTeX for the Greek letters, by code point: the capitals that look Latin are Latin letters. */
+    private static final Map<Integer, String> GREEK_LETTERS = greekLetters();
+
+    private static Map<Integer, String> greekLetters() {
+        Map<Integer, String> m = new java.util.HashMap<>();
+        String[] lower = {"alpha", "beta", "gamma", "delta", "epsilon", "zeta", "eta", "theta", "iota", "kappa", "lambda", "mu", "nu",
+            "xi", "o", "pi", "rho", "varsigma", "sigma", "tau", "upsilon", "phi", "chi", "psi", "omega"};
+        for (int i = 0; i < lower.length; i++) m.put(0x03B1 + i, lower[i].equals("o") ? "o" : "\\" + lower[i]);
+        String[] upper = {"A", "B", "\\Gamma", "\\Delta", "E", "Z", "H", "\\Theta", "I", "K", "\\Lambda", "M", "N", "\\Xi", "O", "\\Pi",
+            "P", null, "\\Sigma", "T", "\\Upsilon", "\\Phi", "X", "\\Psi", "\\Omega"};
+        for (int i = 0; i < upper.length; i++) if (upper[i] != null) m.put(0x0391 + i, upper[i]);
+        m.put(0x03D1, "\\vartheta");
+        m.put(0x03D5, "\\phi");
+        m.put(0x03F5, "\\epsilon");
+        m.put(0x03C6, "\\varphi");
+        m.put(0x00B5, "\\mu");
+        return Map.copyOf(m);
+    }
+
+    /**
+     * Letters of a name (or a unit) inside math: ASCII as it is (LaTeX specials escaped), Greek as
+     * its command, accented Latin letters as text, and any other character as its code, so that the
+     * document compiles with pdfLaTeX whatever script a name is written in.
+     */
+    static String mathText(String s) {
+        StringBuilder out = new StringBuilder();
+        s.codePoints().forEach(c -> {
+            if (c < 0x80) out.append(escapeAscii(Character.toString(c)));
+            else if (GREEK_LETTERS.containsKey(c)) out.append(GREEK_LETTERS.get(c)).append(GREEK_LETTERS.get(c).startsWith("\\") ? "{}" : "");
+            else if (isLatin(c)) out.append("\\text{").appendCodePoint(c).append('}');
+            else out.append("\\text{").append(codeOf(c)).append('}');
+        });
+        return out.toString();
+    }
+
+    /** Text outside math, escaped: LaTeX specials, and the characters beyond ASCII that pdfLaTeX does not know by default. */
     static String escape(String s) {
+        StringBuilder out = new StringBuilder();
+        s.codePoints().forEach(c -> {
+            if (c < 0x80) {
+                out.append(switch (c) {
+                    case '^' -> "\\^{}";
+                    case '~' -> "\\textasciitilde{}";
+                    case '<' -> "\\textless{}";
+                    case '>' -> "\\textgreater{}";
+                    case '|' -> "\\textbar{}";
+                    default -> escapeAscii(Character.toString(c));
+                });
+            } else if (GREEK_LETTERS.containsKey(c)) {
+                out.append("\\ensuremath{").append(GREEK_LETTERS.get(c)).append('}');
+            } else if (TEXT_SYMBOLS.containsKey(c)) {
+                out.append(TEXT_SYMBOLS.get(c));
+            } else if (isLatin(c)) {
+                out.appendCodePoint(c);
+            } else {
+                out.append(codeOf(c));
+            }
+        });
+        return out.toString();
+    }
+
+    private static final Map<Integer, String> TEXT_SYMBOLS = Map.ofEntries(
+            Map.entry(0x00B1, "\\ensuremath{\\pm}"), Map.entry(0x00D7, "\\ensuremath{\\times}"),
+            Map.entry(0x00B7, "\\ensuremath{\\cdot}"), Map.entry(0x00B0, "\\ensuremath{^\\circ}"),
+            Map.entry(0x2212, "\\ensuremath{-}"), Map.entry(0x2013, "--"), Map.entry(0x2014, "---"),
+            Map.entry(0x2018, "`"), Map.entry(0x2019, "'"), Map.entry(0x201C, "``"), Map.entry(0x201D, "''"),
+            Map.entry(0x2032, "\\ensuremath{'}"), Map.entry(0x2033, "\\ensuremath{''}"),
+            Map.entry(0x2202, "\\ensuremath{\\partial}"), Map.entry(0x221D, "\\ensuremath{\\propto}"),
+            Map.entry(0x2248, "\\ensuremath{\\approx}"), Map.entry(0x2264, "\\ensuremath{\\le}"),
+            Map.entry(0x2265, "\\ensuremath{\\ge}"), Map.entry(0x2260, "\\ensuremath{\\ne}"),
+            Map.entry(0x221A, "\\ensuremath{\\surd}"), Map.entry(0x2192, "\\ensuremath{\\to}"),
+            Map.entry(0x221E, "\\ensuremath{\\infty}"), Map.entry(0x2026, "\\ldots{}"),
+            Map.entry(0x2070, "\\textsuperscript{0}"), Map.entry(0x00B9, "\\textsuperscript{1}"),
+            Map.entry(0x00B2, "\\textsuperscript{2}"), Map.entry(0x00B3, "\\textsuperscript{3}"),
+            Map.entry(0x2074, "\\textsuperscript{4}"), Map.entry(0x2075, "\\textsuperscript{5}"),
+            Map.entry(0x2076, "\\textsuperscript{6}"), Map.entry(0x2077, "\\textsuperscript{7}"),
+            Map.entry(0x2078, "\\textsuperscript{8}"), Map.entry(0x2079, "\\textsuperscript{9}"),
+            Map.entry(0x207B, "\\textsuperscript{\\ensuremath{-}}"),
+            Map.entry(0x2080, "\\ensuremath{_0}"), Map.entry(0x2081, "\\ensuremath{_1}"), Map.entry(0x2082, "\\ensuremath{_2}"),
+            Map.entry(0x2083, "\\ensuremath{_3}"), Map.entry(0x2084, "\\ensuremath{_4}"), Map.entry(0x2085, "\\ensuremath{_5}"),
+            Map.entry(0x2086, "\\ensuremath{_6}"), Map.entry(0x2087, "\\ensuremath{_7}"), Map.entry(0x2088, "\\ensuremath{_8}"),
+            Map.entry(0x2089, "\\ensuremath{_9}"));
+
+    private static String escapeAscii(String s) {
         return s.replace("\\", "\\textbackslash{}").replace("_", "\\_").replace("%", "\\%").replace("&", "\\&")
                 .replace("#", "\\#").replace("$", "\\$").replace("{", "\\{").replace("}", "\\}");
+    }
+
+    /** Latin letters with accents (Latin-1 and Latin Extended-A), which pdfLaTeX's default input encoding knows. */
+    private static boolean isLatin(int c) {
+        return c >= 0xC0 && c <= 0x17F && c != 0xD7 && c != 0xF7;
+    }
+
+    private static String codeOf(int c) {
+        return String.format("[U+%04X]", c);
     }
 
     /** A number as written, with an exponent shown as a power of ten. */
@@ -53,8 +145,21 @@ public final class LatexPrinter {
         return (mantissa.equals("1") ? "" : mantissa + "\\times ") + "10^{" + exp + "}";
     }
 
+    /** A unit as written ({@code kg m^-3}, {@code kg^(-4/3)}), upright, with its powers as superscripts. */
     public static String unit(String text) {
-        return "\\,\\mathrm{" + escape(text).replace(" ", "\\,").replace("*", "\\,") + "}";
+        String powers = text.replaceAll("\\^\\s*\\(\\s*([-+]?[0-9./ ]+?)\\s*\\)", "^{$1}").replaceAll("\\^\\s*([-+]?[0-9.]+)", "^{$1}");
+        StringBuilder out = new StringBuilder();
+        int i = 0;
+        while (i < powers.length()) {
+            int open = powers.indexOf("^{", i);
+            int end = open < 0 ? powers.length() : open;
+            out.append(mathText(powers.substring(i, end)).replace(" ", "\\,").replace("*", "\\,"));
+            if (open < 0) break;
+            int close = powers.indexOf('}', open);
+            out.append("^{").append(powers, open + 2, close).append('}');
+            i = close + 1;
+        }
+        return "\\,\\mathrm{" + out + "}";
     }
 
     private static String print(Expr e, int outer) {
@@ -108,7 +213,7 @@ public final class LatexPrinter {
                 return "\\sqrt{" + args + "}";
             case "exp":
                 return "\\exp\\left(" + args + "\\right)";
-            case "log":
+            case "log": case "ln":
                 return "\\ln\\left(" + args + "\\right)";
             case "log10":
                 return "\\log_{10}\\left(" + args + "\\right)";
@@ -118,6 +223,9 @@ public final class LatexPrinter {
                 return "\\" + c.callee() + "\\left(" + args + "\\right)";
             case "asin": case "acos": case "atan":
                 return "\\arc" + c.callee().substring(1) + "\\left(" + args + "\\right)";
+            case "asinh": case "acosh": case "atanh":
+                // ISO 80000-2 writes the inverse hyperbolic functions arsinh, arcosh, artanh.
+                return "\\operatorname{ar" + c.callee().substring(1) + "}\\left(" + args + "\\right)";
             default:
                 return name(c.callee()) + "'".repeat(c.order()) + "\\left(" + args + "\\right)";
         }

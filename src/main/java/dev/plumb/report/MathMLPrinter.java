@@ -97,7 +97,9 @@ public final class MathMLPrinter {
         if (c.callee().equals("sqrt")) return "<msqrt>" + args + "</msqrt>";
         if (c.callee().equals("abs")) return "<mrow><mo>|</mo>" + args + "<mo>|</mo></mrow>";
         String f = switch (c.callee()) {
-            case "log" -> "<mi>ln</mi>";
+            case "log", "ln" -> "<mi>ln</mi>";
+            // ISO 80000-2 writes the inverse hyperbolic functions arsinh, arcosh, artanh.
+            case "asinh", "acosh", "atanh" -> "<mi>ar" + c.callee().substring(1) + "</mi>";
             case "exp", "log10", "sin", "cos", "tan", "asin", "acos", "atan", "sinh", "cosh", "tanh" -> "<mi>" + c.callee() + "</mi>";
             default -> name(c.callee()) + (c.order() > 0 ? "<mo>" + "′".repeat(c.order()) + "</mo>" : "");
         };

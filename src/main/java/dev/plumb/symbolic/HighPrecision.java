@@ -195,6 +195,13 @@ final class HighPrecision {
             if (head != S.ArcTan && f.abs().compareTo(BigDecimal.ONE) > 0) throw new NotReal();
             Apfloat v = head == S.ArcSin ? ApfloatMath.asin(a) : head == S.ArcCos ? ApfloatMath.acos(a) : ApfloatMath.atan(a);
             d = new BigDecimal(v.toString(true));
+        } else if (head == S.ArcSinh || head == S.ArcCosh || head == S.ArcTanh) {
+            if (head == S.ArcCosh && f.compareTo(BigDecimal.ONE) < 0 || head == S.ArcTanh && f.abs().compareTo(BigDecimal.ONE) >= 0) {
+                throw new NotReal();
+            }
+            Apfloat a = new Apfloat(f, PRECISION);
+            Apfloat v = head == S.ArcSinh ? ApfloatMath.asinh(a) : head == S.ArcCosh ? ApfloatMath.acosh(a) : ApfloatMath.atanh(a);
+            d = new BigDecimal(v.toString(true));
         } else {
             throw new Declined();
         }

@@ -26,6 +26,7 @@ final class PlumbForm {
             Map.entry(S.Sin, "sin"), Map.entry(S.Cos, "cos"), Map.entry(S.Tan, "tan"),
             Map.entry(S.ArcSin, "asin"), Map.entry(S.ArcCos, "acos"), Map.entry(S.ArcTan, "atan"),
             Map.entry(S.Sinh, "sinh"), Map.entry(S.Cosh, "cosh"), Map.entry(S.Tanh, "tanh"),
+            Map.entry(S.ArcSinh, "asinh"), Map.entry(S.ArcCosh, "acosh"), Map.entry(S.ArcTanh, "atanh"),
             Map.entry(S.Abs, "abs"), Map.entry(S.Exp, "exp"), Map.entry(S.Sqrt, "sqrt"));
 
     private final SymbolTable table;
@@ -76,10 +77,17 @@ final class PlumbForm {
 
     private Expr symbol(ISymbol s) throws Translation.Untranslatable {
         if (s == S.Pi) return new Expr.Name("pi", Span.NONE);
-        if (s == S.E) return call("exp", num(BigInteger.ONE));
+        if (s == S.E) return eulerNumber();
         String name = table.name(s);
         if (name == null) throw new Translation.Untranslatable("the result mentions a symbol that is not in the file");
         return new Expr.Name(name, Span.NONE);
+    }
+
+    /** Euler's number is written {@code e}, unless the file declares an {@code e} of its own: then {@code exp(1)}. */
+    private Expr eulerNumber() {
+        var declared = table.model().symbols().get("e");
+        return declared == null || declared instanceof dev.plumb.model.Symbol.Builtin
+                ? new Expr.Name("e", Span.NONE) : call("exp", num(BigInteger.ONE));
     }
 
     private Expr plus(IAST a) throws Translation.Untranslatable {

@@ -41,7 +41,8 @@ final class SymbolTable {
         int user = 0;
         for (Symbol s : model.symbols().values()) {
             if (s instanceof Symbol.Definition) continue;
-            if (s instanceof Symbol.Builtin b && b.name().equals("pi")) continue;
+            // pi and e are Symja's own exact constants, not free symbols.
+            if (s instanceof Symbol.Builtin b && (b.name().equals("pi") || b.name().equals("e"))) continue;
             if (s instanceof Symbol.FixedParam f) {
                 Optional<IExpr> exact = exactDimensionless(f);
                 if (exact.isPresent()) {

@@ -171,8 +171,9 @@ public final class SymbolicEngine {
                 Expr e = form.readable(simple);
                 Dimension d = model.dimensionOf(c);
                 List<TrailStep> trail = List.of(
-                        new TrailStep("substitute " + (profiles.containsKey(c.callee()) ? "the closed form of " + c.callee()
-                                : "the definition of " + c.callee()), text + " = " + closedForms.print(value)),
+                        new TrailStep(profiles.containsKey(c.callee()) ? "substitute the closed form of " + c.callee()
+                                : (c.order() > 0 ? "differentiate" : "substitute") + " the definition of " + c.callee(),
+                                text + " = " + closedForms.print(value)),
                         new TrailStep("simplify", text + " = " + ExprPrinter.print(e)));
                 out.add(new Derived(text, e, ExprPrinter.print(e), d, trail));
             } catch (Translation.Untranslatable | Symja.Failure ex) {

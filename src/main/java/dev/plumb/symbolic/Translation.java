@@ -124,6 +124,7 @@ final class Translation {
         Symbol s = table.model().symbols().get(id);
         if (s instanceof Symbol.Definition d && d.params().isEmpty()) return expr(d.body(), Map.of());
         if (s instanceof Symbol.Builtin b && b.name().equals("pi")) return S.Pi;
+        if (s instanceof Symbol.Builtin b && b.name().equals("e")) return S.E;
         if (s instanceof Symbol.UnknownConstant && constants.containsKey(id)) return constants.get(id);
         var exact = table.exactValue(id);
         if (exact.isPresent()) return exact.get();
@@ -141,17 +142,36 @@ final class Translation {
             for (int i = 0; i < args.size(); i++) inner.put(d.params().get(i), args.get(i));
             return expr(d.body(), inner);
         }
+        if (s instanceof Symbol.Definition d && c.order() > 0 && d.params().size() == 1 && args.size() == 1) {
+            return letDerivative(d, c.order(), args.get(0));
+        }
         if (s instanceof Symbol.Profile p && args.size() == 1) return profile(p.name(), c.order(), args.get(0));
         var builtin = BuiltinFunction.lookup(c.callee());
         if (s == null && builtin.isPresent() && c.order() == 0 && args.size() == 1) return function(builtin.get(), args.get(0));
         throw new Untranslatable("'" + c.callee() + "' cannot be called here");
     }
 
+    /**
+     * {@code f^(order)(at)} for {@code let f(x) = ...}: the body in a fresh symbol, differentiated by
+     * Symja and taken at the point. When the parameter bears the coordinate's name the definition is a
+     * function of the coordinate, and whatever in it varies with the coordinate (a definition without
+     * parameters that mentions it, a profile) varies with the argument too, as in {@link
+     * dev.plumb.model.LetDerivative}.
+     */
+    private IExpr letDerivative(Symbol.Definition d, int order, IExpr at) throws Untranslatable {
+        ISymbol t = F.Dummy("pzarg");
+        IExpr body = expr(d.body(), Map.of(d.params().get(0), t));
+        boolean ofCoordinate = table.model().coordinate().map(x -> x.name().equals(d.params().get(0))).orElse(false);
+        if (ofCoordinate) body = body.replaceAll(x -> x == table.coordinate ? t : F.NIL).orElse(body);
+        IExpr derivative = symja.eval(F.D(body, F.list(t, F.ZZ(order))));
+        return Points.at(symja, derivative, t, at, table.assumptions(this));
+    }
+
     private static IExpr function(BuiltinFunction f, IExpr a) {
         return switch (f) {
             case SQRT -> F.Sqrt(a);
             case EXP -> F.Exp(a);
-            case LOG -> F.Log(a);
+            case LOG, LN -> F.Log(a);
             case LOG10 -> F.Divide(F.Log(a), F.Log(F.ZZ(10)));
             case SIN -> F.Sin(a);
             case COS -> F.Cos(a);
@@ -162,6 +182,9 @@ final class Translation {
             case SINH -> F.Sinh(a);
             case COSH -> F.Cosh(a);
             case TANH -> F.Tanh(a);
+            case ASINH -> F.ArcSinh(a);
+            case ACOSH -> F.ArcCosh(a);
+            case ATANH -> F.ArcTanh(a);
             case ABS -> F.Abs(a);
         };
     }

@@ -19,7 +19,7 @@ public final class Constants {
 
   private Constants() {}
 
-  /** Ordered: pi, G, c, h, hbar, k_B, m_u, m_e, m_p, N_A, R_gas, sigma_SB, g_n. */
+  /** Ordered: pi, e, G, c, h, hbar, k_B, m_u, m_e, m_p, N_A, R_gas, sigma_SB, g_n. */
   public static Map<String, Constant> all() {
     return ALL;
   }
@@ -31,6 +31,7 @@ public final class Constants {
   private static Map<String, Constant> build() {
     Map<String, Constant> m = new LinkedHashMap<>();
     put(m, "pi", Math.PI, "1", "ratio of a circle's circumference to its diameter", "mathematical constant");
+    put(m, "e", Math.E, "1", "Euler's number, the base of the natural logarithm", "mathematical constant");
     put(m, "G", "6.67430e-11", "m^3 kg^-1 s^-2", "Newtonian constant of gravitation", CODATA);
     put(m, "c", "299792458", "m/s", "speed of light in vacuum", CODATA_EXACT);
     put(m, "h", "6.62607015e-34", "J s", "Planck constant", CODATA_EXACT);

@@ -43,7 +43,7 @@ public final class ExactRelations {
       new Relation("sigma_SB", Rational.of(2, 15), 5, ordered("k_B", 4, "h", -3, "c", -2), "2*pi^5*k_B^4/(15*h^3*c^2)"));
 
   /** Constants whose value is exact: mathematical, defining constants of the 2019 SI, and defined ones. */
-  private static final Set<String> EXACT = Set.of("pi", "c", "h", "k_B", "N_A", "hbar", "R_gas", "sigma_SB", "g_n");
+  private static final Set<String> EXACT = Set.of("pi", "e", "c", "h", "k_B", "N_A", "hbar", "R_gas", "sigma_SB", "g_n");
 
   private ExactRelations() {}
 

@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.plumb.lang.Diagnostic;
+import dev.plumb.lang.Stmt;
 import dev.plumb.lang.Severity;
 import java.util.List;
 import org.junit.jupiter.api.Test;
@@ -121,15 +122,46 @@ class ResolutionTest {
     }
 
     @Test
-    void derivativeOfADefinition() {
-        String text = SPHERE + "relation mass: m'(r) = 4*pi*r^2*rho\n";
-        Diagnostic d = Checking.of(text).onlyError("only unknown profiles can be differentiated; 'm' is a definition ('let')");
-        assertAt(d, 7, column(text, 7, "m'"));
+    void derivativeOfADefinitionOfTheCoordinateHasItsUnitOverTheCoordinates() throws Exception {
+        String text = SPHERE + "relation mass: m'(r) = 4*pi*r^2*rho\nshow m''(R/2)\n";
+        Checking c = Checking.of(text);
+        c.assertNoErrors();
+        assertEquals(List.of(), c.all(Severity.WARNING));
+        Stmt.Show show = c.model.shows().get(0);
+        // kg over m twice: the definition's unit over the coordinate's, once per prime.
+        assertEquals(dev.plumb.units.UnitParser.parse("kg/m^2").dimension(), c.model.dimensionOf(show.expr()));
+    }
+
+    @Test
+    void derivativeOfADefinitionWithoutArgumentIsAnError() {
+        String text = SPHERE + "show rho'(R)\n";
+        Diagnostic d = Checking.of(text).onlyError("'rho' is not a function: it is defined without an argument (line 4), so rho'(R) has no meaning");
+        assertAt(d, 7, column(text, 7, "rho'"));
+    }
+
+    @Test
+    void definitionThatDoesNotDependOnItsArgumentHasDerivativeZeroWithAWarning() {
+        String text = SPHERE + "let flat(r) = rho*R\nshow flat'(R)\n";
+        Checking c = Checking.of(text);
+        c.assertNoErrors();
+        List<Diagnostic> warnings = c.all(Severity.WARNING);
+        assertEquals(1, warnings.size(), warnings::toString);
+        assertTrue(warnings.get(0).message().contains("'flat' does not depend on its argument 'r', so flat'(R) is 0"), warnings.get(0).message());
+    }
+
+    @Test
+    void derivativeOfADefinitionTakenAtAPointOfAnotherUnit() {
+        Checking.of(SPHERE + "show m'(2 [s])\n").onlyError("the point where m' is taken must have the unit of its argument 'r'");
+    }
+
+    @Test
+    void derivativeOfADefinitionOfTwoArguments() {
+        Checking.of(SPHERE + "let f(a, b) = a*b\nshow f'(R)\n").onlyError("'f' takes 2 arguments; only a definition of one argument can be differentiated");
     }
 
     @Test
     void derivativeOfAParameterAndOfABuiltinFunction() {
-        Checking.of(SPHERE + "show M'(r)\n").onlyError("'M' is not an unknown profile");
+        Checking.of(SPHERE + "show M'(r)\n").onlyError("'M' is not a function of the coordinate");
         Checking.of(SPHERE + "show sqrt'(r)\n").onlyError("'sqrt' is a built-in function");
     }
 
@@ -143,6 +175,49 @@ class ResolutionTest {
         assertTrue(warnings.get(0).message().contains("'G' shadows the built-in constant G"), warnings.get(0).message());
         assertAt(warnings.get(0), 1, 7);
         assertInstanceOf(Symbol.FreeParam.class, c.model.symbol("G").orElseThrow());
+    }
+
+    @Test
+    void declaringEOrLnShadowsTheBuiltInWithAWarning() {
+        String text = "param e = 3\nlet ln(x) = 2*x\nshow e*ln(1)\n";
+        Checking c = Checking.of(text);
+        c.assertNoErrors();
+        List<String> warnings = c.all(Severity.WARNING).stream().map(Diagnostic::message).toList();
+        assertEquals(2, warnings.size(), warnings::toString);
+        assertTrue(warnings.get(0).contains("'e' shadows the built-in constant e (Euler's number"), warnings.get(0));
+        assertTrue(warnings.get(1).contains("'ln' shadows the built-in function ln (natural logarithm)"), warnings.get(1));
+        assertInstanceOf(Symbol.FixedParam.class, c.model.symbol("e").orElseThrow());
+    }
+
+    @Test
+    void eIsEulersNumberWhenNotDeclared() {
+        Checking c = Checking.of("param x = ln(e^3)\n");
+        c.assertNoErrors();
+        assertInstanceOf(Symbol.Builtin.class, c.model.symbol("e").orElseThrow());
+        // ln(e^3) = 3 exactly in real arithmetic; in doubles to an ulp or two.
+        assertEquals(3.0, ((Symbol.FixedParam) c.model.symbol("x").orElseThrow()).value(), 1e-15);
+    }
+
+    @Test
+    void greekNamesAndPiWrittenAsTheLetter() {
+        String text = "param ρ_c [kg/m^3] > 0\nparam λ = 2\nlet Γ = λ*π\nshow ρ_c*Γ\n";
+        Checking c = Checking.of(text);
+        c.assertNoErrors();
+        assertEquals(List.of(), c.all(Severity.WARNING));
+        assertInstanceOf(Symbol.FreeParam.class, c.model.symbol("ρ_c").orElseThrow());
+        assertInstanceOf(Symbol.Builtin.class, c.model.symbol("pi").orElseThrow(), "π is the constant pi");
+    }
+
+    @Test
+    void atFixedNamesTheImplicitCaseOfAFileWithoutFreeParameters() {
+        String text = "param g = 9.80665 [m/s^2]\ncoord z [m] from 0 to 10 [m]\nunknown P(z) [Pa]\n"
+                + "relation r1: P'(z) = 1000 [kg/m^3]*g\nboundary b: P(0) = 0\n";
+        Checking.of(text + "expect x: P(10 [m]) at fixed = 98066.5 [Pa] within 1e-9\n").assertNoErrors();
+        Checking.of(text + "expect x: P(10 [m]) at sun = 98066.5 [Pa] within 1e-9\n")
+                .onlyError("there is no case named 'sun': the file has no free parameters, so its one case is 'fixed'");
+        // With free parameters there is no implicit case, so 'fixed' is no case's name.
+        Checking.of(SPHERE + "case sun: M = 1 [kg], R = 1 [m]\nexpect x: rho at fixed = 1 [kg/m^3] within 1%\n")
+                .onlyError("there is no case named 'fixed'");
     }
 
     @Test

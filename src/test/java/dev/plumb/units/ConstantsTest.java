@@ -22,9 +22,9 @@ class ConstantsTest {
   @Test
   void namesComeInTheDocumentedOrder() {
     assertEquals(
-        List.of("pi", "G", "c", "h", "hbar", "k_B", "m_u", "m_e", "m_p", "N_A", "R_gas", "sigma_SB", "g_n"),
+        List.of("pi", "e", "G", "c", "h", "hbar", "k_B", "m_u", "m_e", "m_p", "N_A", "R_gas", "sigma_SB", "g_n"),
         List.copyOf(Constants.all().keySet()));
-    assertFalse(Constants.lookup("e").isPresent());
+    assertFalse(Constants.lookup("E").isPresent());
   }
 
   @Test
