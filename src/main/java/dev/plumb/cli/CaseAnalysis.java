@@ -79,7 +79,16 @@ final class CaseAnalysis {
     Analysis.CaseTable table(CaseResult result, boolean profiles) {
         CaseValues values = model.caseNamed(result.label()).orElse(null);
         List<Analysis.Row> rows = new ArrayList<>();
+        // Two rows of one quantity (shown in two units) share its sensitivities and uncertainty, worked out once.
+        Map<String, Analysis.Row> done = new LinkedHashMap<>();
         for (QuantityRow q : result.quantities()) {
+            Analysis.Row same = done.get(q.expr());
+            if (same != null) {
+                rows.add(new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
+                        q.relDiff(), Double.isFinite(q.errorEstimate()) ? q.errorEstimate() : null, q.shownUnit(), q.shownFactor(),
+                        same.sensitivities(), same.uncertainty()));
+                continue;
+            }
             Map<String, Double> sens = Map.of();
             Analysis.Uncertainty unc = null;
             if (values != null && !model.freeParams().isEmpty() && Double.isFinite(q.numeric())) {
@@ -101,9 +110,11 @@ final class CaseAnalysis {
                     }
                 }
             }
-            rows.add(new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
+            Analysis.Row row = new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
                     q.relDiff(), Double.isFinite(q.errorEstimate()) ? q.errorEstimate() : null, q.shownUnit(), q.shownFactor(),
-                    sens, unc));
+                    sens, unc);
+            rows.add(row);
+            done.put(q.expr(), row);
         }
         List<Analysis.ProfileSample> samples = profiles && result.solved() ? samples(result.label(), values) : List.of();
         return new Analysis.CaseTable(result.label(), result.method(), result.failure(), rows, samples);
