@@ -5,6 +5,7 @@ import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Span;
 import dev.plumb.model.CaseValues;
 import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import dev.plumb.numeric.CaseResult;
@@ -18,7 +19,6 @@ import dev.plumb.scaling.Monomial;
 import dev.plumb.scaling.SolvedQuantity;
 import dev.plumb.scaling.Sweep;
 import dev.plumb.units.Rational;
-import dev.plumb.units.UnitCatalog;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -125,6 +125,7 @@ final class CaseAnalysis {
         if (coord.isEmpty() || model.profiles().isEmpty()) return List.of();
         Map<String, Double> params = values == null ? Map.of() : values.values();
         List<Analysis.ProfileSample> out = new ArrayList<>();
+        FileUnits units = FileUnits.of(model);
         try {
             Solution s = NumericEngine.solve(model, params, SWEEP_OPTIONS);
             double a = s.evaluate(coord.get().from());
@@ -145,12 +146,20 @@ final class CaseAnalysis {
                         c[i] = new ConstantEvaluator(nm -> model.symbols().get(nm), at).evaluate(form);
                     }
                 }
-                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), UnitCatalog.siName(coord.get().dimension()),
-                        UnitCatalog.siName(p.dimension()), x, y, c));
+                // Plotted in the file's units: the coordinate's declared unit and the profile's own.
+                dev.plumb.units.Unit xu = units.coordinate(), yu = units.forSymbol(p.name());
+                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), xu.text(), yu.text(), scaled(x, xu), scaled(y, yu),
+                        c == null ? null : scaled(c, yu)));
             }
         } catch (SolveException | ConstantEvaluator.NotConstant ex) {
             notes.add(casePrefix(label) + "profiles not sampled for plotting: " + ex.getMessage());
         }
+        return out;
+    }
+
+    private static double[] scaled(double[] si, dev.plumb.units.Unit unit) {
+        double[] out = new double[si.length];
+        for (int i = 0; i < si.length; i++) out[i] = si[i] / unit.factor();
         return out;
     }
 

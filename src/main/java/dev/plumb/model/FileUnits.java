@@ -35,7 +35,8 @@ public final class FileUnits {
     private final Model model;
     private final Unit coordinate;
     private final Map<String, Unit> bySymbol = new HashMap<>();
-    private final Map<String, Unit> byQuantity = new LinkedHashMap<>();
+    private final Map<String, Unit> byShow = new LinkedHashMap<>();
+    private final Map<String, Unit> byExpect = new LinkedHashMap<>();
     private final Map<Dimension, Unit> declared = new LinkedHashMap<>();
     private final Map<Dimension, Unit> shown = new LinkedHashMap<>();
 
@@ -66,7 +67,7 @@ public final class FileUnits {
         // An expectation's unit counts after every show: the show is what the author asked to see.
         for (Stmt.Expect e : model.caseExpects()) {
             Unit u = written(e.expected());
-            if (u != null) byQuantity.putIfAbsent(ExprPrinter.print(e.lhs()), u);
+            if (u != null) byExpect.putIfAbsent(ExprPrinter.print(e.lhs()), u);
             if (u != null && !u.dimension().isNone()) shown.putIfAbsent(u.dimension(), u);
         }
         this.coordinate = coord;
@@ -89,7 +90,7 @@ public final class FileUnits {
 
     private void quantity(String printed, Unit u) {
         if (u == null) return;
-        byQuantity.putIfAbsent(printed, u);
+        byShow.putIfAbsent(printed, u);
         if (!u.dimension().isNone()) shown.putIfAbsent(u.dimension(), u);
     }
 
@@ -150,16 +151,30 @@ public final class FileUnits {
      * unit for its dimension.
      */
     public Unit forQuantity(Expr e) {
+        Unit u = matching(byShow, e);
+        return u != null ? u : forUnshown(e);
+    }
+
+    /**
+     * The unit of a {@code show} line that names none: as {@link #forQuantity}, except that another show of
+     * the same quantity does not count (that one has its own row in its own unit).
+     */
+    public Unit forUnshown(Expr e) {
+        Unit u = matching(byExpect, e);
+        if (u != null) return u;
         Dimension d = model.dimensionOf(e);
-        Unit u = byQuantity.get(ExprPrinter.print(e));
-        // A node the unit check never saw (built after it) has no dimension of its own to compare with.
-        if (u != null && (u.dimension().equals(d) || !model.dimensions().containsKey(e))) return u;
         if (e instanceof Expr.Name n && model.symbols().get(n.id()) != null) return forSymbol(n.id());
         if (e instanceof Expr.Call c && c.order() == 0 && model.symbols().get(c.callee()) instanceof Symbol.Profile) {
             Unit own = forSymbol(c.callee());
             if (own.dimension().equals(d)) return own;
         }
         return forDimension(d);
+    }
+
+    private Unit matching(Map<String, Unit> units, Expr e) {
+        Unit u = units.get(ExprPrinter.print(e));
+        // A node the unit check never saw (built after it) has no dimension of its own to compare with.
+        return u != null && (u.dimension().equals(model.dimensionOf(e)) || !model.dimensions().containsKey(e)) ? u : null;
     }
 
     /** A number format for {@link #format}: a whole number as it is (11000, not 11000.0), any other to six figures. */

@@ -185,7 +185,7 @@ public final class NumericEngine {
     private static List<Wanted> wanted(Model model, FileUnits units) {
         List<Wanted> out = new ArrayList<>();
         for (Stmt.Show s : model.shows()) {
-            dev.plumb.units.Unit unit = s.unit() == null ? units.forQuantity(s.expr()) : shownUnit(s.unit().text(), units, s.expr());
+            dev.plumb.units.Unit unit = s.unit() == null ? units.forUnshown(s.expr()) : shownUnit(s.unit().text(), units, s.expr());
             out.add(new Wanted(ExprPrinter.print(s.expr()), s.expr(), unit, null));
         }
         for (Stmt.Claim c : model.claims()) {

@@ -116,7 +116,7 @@ public final class Sequences {
                     // Reported by the unit check; the file's unit for the quantity stands in.
                 }
             }
-            out.add(column(model, s.expr(), shown != null ? shown : units.forQuantity(s.expr())));
+            out.add(column(model, s.expr(), shown != null ? shown : units.forUnshown(s.expr())));
         }
         for (Stmt.Expect e : expects) {
             if (indexOf(out, ExprPrinter.print(e.lhs())) >= 0) continue;
