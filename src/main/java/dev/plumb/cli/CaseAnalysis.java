@@ -5,6 +5,7 @@ import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Span;
 import dev.plumb.model.CaseValues;
 import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import dev.plumb.numeric.CaseResult;
@@ -18,7 +19,6 @@ import dev.plumb.scaling.Monomial;
 import dev.plumb.scaling.SolvedQuantity;
 import dev.plumb.scaling.Sweep;
 import dev.plumb.units.Rational;
-import dev.plumb.units.UnitCatalog;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -79,7 +79,16 @@ final class CaseAnalysis {
     Analysis.CaseTable table(CaseResult result, boolean profiles) {
         CaseValues values = model.caseNamed(result.label()).orElse(null);
         List<Analysis.Row> rows = new ArrayList<>();
+        // Two rows of one quantity (shown in two units) share its sensitivities and uncertainty, worked out once.
+        Map<String, Analysis.Row> done = new LinkedHashMap<>();
         for (QuantityRow q : result.quantities()) {
+            Analysis.Row same = done.get(q.expr());
+            if (same != null) {
+                rows.add(new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
+                        q.relDiff(), Double.isFinite(q.errorEstimate()) ? q.errorEstimate() : null, q.shownUnit(), q.shownFactor(),
+                        same.sensitivities(), same.uncertainty()));
+                continue;
+            }
             Map<String, Double> sens = Map.of();
             Analysis.Uncertainty unc = null;
             if (values != null && !model.freeParams().isEmpty() && Double.isFinite(q.numeric())) {
@@ -101,9 +110,11 @@ final class CaseAnalysis {
                     }
                 }
             }
-            rows.add(new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
+            Analysis.Row row = new Analysis.Row(q.expr(), q.unit(), q.closedForm(), Double.isFinite(q.numeric()) ? q.numeric() : null,
                     q.relDiff(), Double.isFinite(q.errorEstimate()) ? q.errorEstimate() : null, q.shownUnit(), q.shownFactor(),
-                    sens, unc));
+                    sens, unc);
+            rows.add(row);
+            done.put(q.expr(), row);
         }
         List<Analysis.ProfileSample> samples = profiles && result.solved() ? samples(result.label(), values) : List.of();
         return new Analysis.CaseTable(result.label(), result.method(), result.failure(), rows, samples);
@@ -114,6 +125,7 @@ final class CaseAnalysis {
         if (coord.isEmpty() || model.profiles().isEmpty()) return List.of();
         Map<String, Double> params = values == null ? Map.of() : values.values();
         List<Analysis.ProfileSample> out = new ArrayList<>();
+        FileUnits units = FileUnits.of(model);
         try {
             Solution s = NumericEngine.solve(model, params, SWEEP_OPTIONS);
             double a = s.evaluate(coord.get().from());
@@ -134,12 +146,20 @@ final class CaseAnalysis {
                         c[i] = new ConstantEvaluator(nm -> model.symbols().get(nm), at).evaluate(form);
                     }
                 }
-                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), UnitCatalog.siName(coord.get().dimension()),
-                        UnitCatalog.siName(p.dimension()), x, y, c));
+                // Plotted in the file's units: the coordinate's declared unit and the profile's own.
+                dev.plumb.units.Unit xu = units.coordinate(), yu = units.forSymbol(p.name());
+                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), xu.text(), yu.text(), scaled(x, xu), scaled(y, yu),
+                        c == null ? null : scaled(c, yu)));
             }
         } catch (SolveException | ConstantEvaluator.NotConstant ex) {
             notes.add(casePrefix(label) + "profiles not sampled for plotting: " + ex.getMessage());
         }
+        return out;
+    }
+
+    private static double[] scaled(double[] si, dev.plumb.units.Unit unit) {
+        double[] out = new double[si.length];
+        for (int i = 0; i < si.length; i++) out[i] = si[i] / unit.factor();
         return out;
     }
 

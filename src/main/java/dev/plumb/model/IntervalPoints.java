@@ -23,10 +23,25 @@ final class IntervalPoints {
     private final Symbol.Coordinate coord;
     private final Diagnostics diagnostics;
 
-    private IntervalPoints(Map<String, Symbol> symbols, Symbol.Coordinate coord, Diagnostics diagnostics) {
+    /** The unit the coordinate is declared in, or null. */
+    private final dev.plumb.units.Unit coordUnit;
+
+    private IntervalPoints(Map<String, Symbol> symbols, Symbol.Coordinate coord, List<Stmt> statements, Diagnostics diagnostics) {
         this.symbols = symbols;
         this.coord = coord;
         this.diagnostics = diagnostics;
+        dev.plumb.units.Unit declared = null;
+        for (Stmt s : statements) {
+            if (s instanceof Stmt.Coord c && c.name().equals(coord.name()) && c.unit() != null) {
+                try {
+                    declared = dev.plumb.units.UnitParser.parse(c.unit().text());
+                } catch (dev.plumb.units.UnitException e) {
+                    // Reported by the unit check; SI stands in.
+                }
+                break;
+            }
+        }
+        this.coordUnit = declared;
     }
 
     /**
@@ -36,7 +51,7 @@ final class IntervalPoints {
     static void check(Map<String, Symbol> symbols, Symbol.Coordinate coord, List<CaseValues> cases, List<Stmt> statements,
                       boolean hasFreeParams, Diagnostics diagnostics) {
         if (coord == null) return;
-        IntervalPoints points = new IntervalPoints(symbols, coord, diagnostics);
+        IntervalPoints points = new IntervalPoints(symbols, coord, statements, diagnostics);
         List<CaseValues> all = new ArrayList<>(cases);
         if (all.isEmpty() && !hasFreeParams) all.add(new CaseValues("", dev.plumb.lang.Span.NONE, Map.of(), Map.of()));
         for (CaseValues c : all) {
@@ -137,12 +152,16 @@ final class IntervalPoints {
         double lo = Math.min(a, b), hi = Math.max(a, b), slack = 1e-12 * Math.max(Math.abs(a), Math.abs(b));
         if (x >= lo - slack && x <= hi + slack) return false;
         String where = c.label().isEmpty() ? "" : " in case '" + c.label() + "'";
-        String unit = dev.plumb.units.UnitCatalog.siName(coord.dimension());
-        unit = unit.equals("1") ? "" : " " + unit;
+        // In the coordinate's declared unit, as the file writes its points (SI beside when that differs).
+        dev.plumb.units.Unit u = coordUnit != null && coordUnit.dimension().equals(coord.dimension()) ? coordUnit : FileUnits.si(coord.dimension());
+        String unit = u.text().equals("1") ? "" : " " + u.text();
+        String si = u.factor() == 1.0 ? "" : String.format(" (%s to %s %s)", number(lo), number(hi),
+                dev.plumb.units.UnitCatalog.siName(coord.dimension()));
         diagnostics.error(call.args().get(0).span(), ExprPrinter.print(call) + " asks for a point outside the interval of '"
                         + coord.name() + "' (" + ExprPrinter.print(coord.from()) + " to " + ExprPrinter.print(coord.to()) + ")",
-                String.format("%s = %s = %s%s%s, but the interval is [%s, %s]%s", coord.name(),
-                        ExprPrinter.print(call.args().get(0)), number(x), unit, where, number(lo), number(hi), unit),
+                String.format("%s = %s = %s%s%s, but the interval is [%s, %s]%s%s", coord.name(),
+                        ExprPrinter.print(call.args().get(0)), number(x / u.factor()), unit, where, number(lo / u.factor()),
+                        number(hi / u.factor()), unit, si),
                 "a profile is known only where its relations hold; plumb does not extrapolate past the ends");
         return true;
     }

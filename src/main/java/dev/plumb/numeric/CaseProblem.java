@@ -446,31 +446,9 @@ final class CaseProblem {
         return String.join(", ", parts) + (oneSource && !unknowns.isEmpty() ? ", " + unknowns.get(0).guessSource() : "");
     }
 
-    /** A value of an unknown in the unit its declaration gives (SI when it gives none, or for a derivative). */
+    /** A value of an unknown in the file's unit for it (its declared unit, else the file's for its dimension), SI beside. */
     String inUserUnits(Unknown u, double v) {
-        String name = u.component() >= 0 && u.component() == form.base[componentProfile(u.component())]
-                ? form.profiles.get(componentProfile(u.component())).name() : u.component() < 0 ? u.name() : null;
-        Dimension d = u.component() >= 0 ? componentDimension(u.component()) : form.constants.get(u.constant()).dimension();
-        return quantity(v, name == null ? null : declaredUnit(name), d);
-    }
-
-    /** A quantity in the given unit text (or SI for the dimension when null), with 6 figures. */
-    static String quantity(double v, String unit, Dimension d) {
-        if (unit != null) {
-            try {
-                return String.format("%.6g %s", v / dev.plumb.units.UnitParser.parse(unit).factor(), unit);
-            } catch (dev.plumb.units.UnitException ignored) {
-                // Reported by the unit check; fall back to SI.
-            }
-        }
-        String si = dev.plumb.units.UnitCatalog.siName(d);
-        return String.format("%.6g", v) + (si.equals("1") ? "" : " " + si);
-    }
-
-    private String declaredUnit(String name) {
-        for (Stmt s : form.model.program().statements()) {
-            if (s instanceof Stmt.Unknown u && u.name().equals(name) && u.unit() != null) return u.unit().text();
-        }
-        return null;
+        if (u.component() >= 0) return form.componentValue(u.component(), v, "%.6g");
+        return form.units.symbolValue(v, form.constants.get(u.constant()).name(), "%.6g");
     }
 }

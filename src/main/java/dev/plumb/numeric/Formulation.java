@@ -4,6 +4,7 @@ import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Span;
 import dev.plumb.lang.Stmt;
+import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import java.util.ArrayList;
@@ -36,6 +37,8 @@ final class Formulation {
     final List<Symbol.UnknownConstant> constants;
     /** The unknown constant that is the free end of the interval, or null. */
     final Symbol.UnknownConstant freeEnd;
+    /** The units the file works in, for the values messages echo. */
+    final FileUnits units;
 
     private Formulation(Model model, Symbol.Coordinate coordinate, List<Symbol.Profile> profiles, int[] order,
                         List<Stmt.Relation> relationOf, List<Symbol.UnknownConstant> constants,
@@ -54,6 +57,7 @@ final class Formulation {
         this.relationOf = List.copyOf(relationOf);
         this.constants = List.copyOf(constants);
         this.freeEnd = freeEnd;
+        this.units = FileUnits.of(model);
     }
 
     int derivativeSlot(int j) {
@@ -71,6 +75,24 @@ final class Formulation {
     int profileIndex(String name) {
         for (int j = 0; j < profiles.size(); j++) if (profiles.get(j).name().equals(name)) return j;
         return -1;
+    }
+
+    /** A place along the coordinate (SI) in the file's unit for it, SI beside. */
+    String position(double x, String numberFormat) {
+        return units.position(x, numberFormat);
+    }
+
+    /** A value of state component {@code stateIndex} (SI) in the file's unit for it, SI beside. */
+    String componentValue(int stateIndex, double v, String numberFormat) {
+        for (int j = profiles.size() - 1; j >= 0; j--) {
+            if (stateIndex >= base[j]) {
+                int k = stateIndex - base[j];
+                Symbol.Profile p = profiles.get(j);
+                dev.plumb.units.Dimension d = p.dimension().div(coordinate.dimension().pow(dev.plumb.units.Rational.of(k)));
+                return FileUnits.format(v, units.forDerivative(p.name(), k, d), numberFormat);
+            }
+        }
+        return String.format(java.util.Locale.ROOT, numberFormat, v);
     }
 
     /** How a state component is written: P, P', theta''... */

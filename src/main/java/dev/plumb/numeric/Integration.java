@@ -204,13 +204,13 @@ final class Integration {
                 return new Stop(xs, ys, true, dp.steps, true);
             }
             throw new SolveException(system.form.coordinate.span(), "the integration stalled at "
-                    + system.form.coordinate.name() + " = " + String.format("%.9g", xs)
+                    + system.form.coordinate.name() + " = " + system.form.position(xs, "%.9g")
                     + (system.lastFinite() ? "" : ", where the relations give a non-finite value")
-                    + " (step size below " + String.format("%.3g", Math.min(minStep, span * 1e-3)) + "; state "
+                    + " (step size below " + system.form.position(Math.min(minStep, span * 1e-3), "%.3g") + "; state "
                     + describe(ys) + "): the relations may be singular there");
         } catch (MaxCountExceededException tooMany) {
             throw new SolveException(system.form.coordinate.span(), "the integration needed more than 2,000,000 evaluations between "
-                    + system.form.coordinate.name() + " = " + String.format("%.6g", x0) + " and " + String.format("%.6g", dp.last)
+                    + system.form.coordinate.name() + " = " + system.form.position(x0, "%.6g") + " and " + system.form.position(dp.last, "%.6g")
                     + " (tolerance " + relTol[0] + "): the relations are too stiff here");
         }
     }
@@ -255,7 +255,7 @@ final class Integration {
         for (double v : y) {
             if (!Double.isFinite(v)) {
                 throw new SolveException(system.form.coordinate.span(), "the relations are not finite between "
-                        + system.form.coordinate.name() + " = " + String.format("%.12g", x0) + " and " + String.format("%.12g", x1)
+                        + system.form.coordinate.name() + " = " + system.form.position(x0, "%.12g") + " and " + system.form.position(x1, "%.12g")
                         + " (state " + describe(y0) + ")");
             }
         }
@@ -267,7 +267,7 @@ final class Integration {
         StringBuilder sb = new StringBuilder();
         for (int i = 0; i < y.length; i++) {
             if (i > 0) sb.append(", ");
-            sb.append(system.form.componentName(i)).append(" = ").append(String.format("%.6g", y[i]));
+            sb.append(system.form.componentName(i)).append(" = ").append(system.form.componentValue(i, y[i], "%.6g"));
         }
         return sb.toString();
     }

@@ -7,14 +7,15 @@ import dev.plumb.lang.Span;
 import dev.plumb.lang.Stmt;
 import dev.plumb.model.Check;
 import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Status;
 import dev.plumb.units.UnitCatalog;
 import dev.plumb.units.UnitException;
 import dev.plumb.units.UnitParser;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 
 /**
@@ -110,8 +111,11 @@ public final class NumericEngine {
         }
     }
 
-    /** A quantity of the comparison table with the statement it comes from. */
-    private record Wanted(Expr expr, String shownUnit, Expr claimed) { }
+    /**
+     * A row of the comparison table: the quantity, the unit it is shown in (a {@code show}'s own, else the
+     * file's unit for it) and the claimed value it is compared with when no closed form is derived.
+     */
+    private record Wanted(String key, Expr expr, dev.plumb.units.Unit shown, Expr claimed) { }
 
     /**
      * Solves every case of the model and compares. {@code closedForms} maps a quantity as printed by
@@ -139,7 +143,8 @@ public final class NumericEngine {
             notes.add("no case gives values to the free parameters, so nothing was integrated; add e.g. case sun: "
                     + model.freeParams().get(0).name() + " = ...");
         }
-        Map<String, Wanted> wanted = wanted(model);
+        FileUnits units = FileUnits.of(model);
+        List<Wanted> wanted = wanted(model, units);
         for (dev.plumb.model.CaseValues c : all) {
             progress.accept(implicit(model) ? "solving" : "case " + c.label());
             List<Stmt.Expect> expects = model.caseExpects().stream()
@@ -171,32 +176,57 @@ public final class NumericEngine {
             }
             Signs.check(model, c.label(), implicit(model), solution, diagnostics);
             List<QuantityRow> rows = new ArrayList<>();
-            for (Map.Entry<String, Wanted> w : wanted.entrySet()) {
-                rows.add(row(model, c, w.getKey(), w.getValue(), solution, tight, closedForms, notes, diagnostics));
-            }
-            for (Stmt.Expect e : expects) checks.add(expect(model, c, e, solution, tight, diagnostics));
+            for (Wanted w : wanted) rows.add(row(model, c, w, solution, tight, closedForms, notes, diagnostics));
+            for (Stmt.Expect e : expects) checks.add(expect(model, units, c, e, solution, tight, diagnostics));
             cases.add(new CaseResult(c.label(), solution.method(), rows, null));
         }
         List<Sequences.Result> sequences = Sequences.run(model, closedForms, options, checks, progress);
         return new NumericResult(cases, checks, notes, diagnostics, sequences);
     }
 
-    private static Map<String, Wanted> wanted(Model model) {
-        Map<String, Wanted> out = new LinkedHashMap<>();
-        for (Stmt.Show s : model.shows()) out.putIfAbsent(ExprPrinter.print(s.expr()), new Wanted(s.expr(), s.unit() == null ? null : s.unit().text(), null));
+    /**
+     * The rows of every case's table: one per {@code show} line (two shows of one quantity in two units are two
+     * rows), then each claimed and expected quantity not shown already. A claim's right side goes to every row of
+     * its quantity.
+     */
+    private static List<Wanted> wanted(Model model, FileUnits units) {
+        List<Wanted> out = new ArrayList<>();
+        for (Stmt.Show s : model.shows()) {
+            dev.plumb.units.Unit unit = s.unit() == null ? units.forUnshown(s.expr()) : shownUnit(s.unit().text(), units, s.expr());
+            out.add(new Wanted(ExprPrinter.print(s.expr()), s.expr(), unit, null));
+        }
         for (Stmt.Claim c : model.claims()) {
             // A claim about a whole profile (P(z) = ...) has no single value in a case; the symbolic side checks it.
             if (dependsOnCoordinate(model, c.equation().lhs(), new java.util.HashSet<>())) continue;
             String key = ExprPrinter.print(c.equation().lhs());
-            Wanted old = out.get(key);
-            out.put(key, new Wanted(old == null ? c.equation().lhs() : old.expr(), old == null ? null : old.shownUnit(), c.equation().rhs()));
+            boolean found = false;
+            for (int i = 0; i < out.size(); i++) {
+                Wanted w = out.get(i);
+                if (!w.key().equals(key)) continue;
+                out.set(i, new Wanted(key, w.expr(), w.shown(), c.equation().rhs()));
+                found = true;
+            }
+            if (!found) out.add(new Wanted(key, c.equation().lhs(), units.forQuantity(c.equation().lhs()), c.equation().rhs()));
         }
-        for (Stmt.Expect e : model.caseExpects()) out.putIfAbsent(ExprPrinter.print(e.lhs()), new Wanted(e.lhs(), null, null));
+        for (Stmt.Expect e : model.caseExpects()) {
+            String key = ExprPrinter.print(e.lhs());
+            if (out.stream().noneMatch(w -> w.key().equals(key))) out.add(new Wanted(key, e.lhs(), units.forQuantity(e.lhs()), null));
+        }
         return out;
     }
 
-    private static QuantityRow row(Model model, dev.plumb.model.CaseValues c, String key, Wanted w, Solution solution,
+    /** The unit a show names, parsed; the file's unit for the quantity when it does not parse (the unit check said why). */
+    private static dev.plumb.units.Unit shownUnit(String text, FileUnits units, Expr quantity) {
+        try {
+            return UnitParser.parse(text);
+        } catch (UnitException ex) {
+            return units.forQuantity(quantity);
+        }
+    }
+
+    private static QuantityRow row(Model model, dev.plumb.model.CaseValues c, Wanted w, Solution solution,
                                    Solution tight, Map<String, Expr> closedForms, List<String> notes, List<Diagnostic> diagnostics) {
+        String key = w.key();
         double numeric;
         try {
             numeric = solution.evaluate(w.expr());
@@ -236,19 +266,14 @@ public final class NumericEngine {
         if (closed != null && closed != 0) rel = Math.abs(numeric - closed) / Math.abs(closed);
         else if (closed != null && numeric == 0) rel = 0.0;
         String unit = UnitCatalog.siName(model.dimensionOf(w.expr()));
-        double factor = 1.0;
-        if (w.shownUnit() != null) {
-            try {
-                factor = UnitParser.parse(w.shownUnit()).factor();
-            } catch (UnitException ex) {
-                notes.add("cannot show " + key + " in [" + w.shownUnit() + "]: " + ex.getMessage());
-            }
-        }
-        return new QuantityRow(key, unit, closed, numeric, rel, error, w.shownUnit(), factor, source);
+        // A row in SI needs no second unit; any other (a show's, or the file's own) is named beside the SI values.
+        boolean inSi = w.shown().factor() == 1.0 && (w.shown().text().equals(unit) || w.shown().dimension().isNone());
+        return new QuantityRow(key, unit, closed, numeric, rel, error, inSi ? null : w.shown().text(), inSi ? 1.0 : w.shown().factor(),
+                source);
     }
 
-    private static Check expect(Model model, dev.plumb.model.CaseValues c, Stmt.Expect e, Solution solution, Solution tight,
-                                List<Diagnostic> diagnostics) {
+    private static Check expect(Model model, FileUnits units, dev.plumb.model.CaseValues c, Stmt.Expect e, Solution solution,
+                                Solution tight, List<Diagnostic> diagnostics) {
         String label = label(e);
         double value;
         try {
@@ -263,24 +288,33 @@ public final class NumericEngine {
             return Check.of("expect", label, e.span(), Status.FAILS, "the expected value is not a fixed number");
         }
         String unit = UnitCatalog.siName(model.dimensionOf(e.lhs()));
+        // Echoed in the unit the expectation is written in (else the file's unit for the quantity), SI beside.
+        dev.plumb.units.Unit shown = FileUnits.written(e.expected());
+        if (shown == null || !shown.dimension().equals(model.dimensionOf(e.lhs()))) shown = units.forQuantity(e.lhs());
         double allowed;
         String tolText;
         if (e.tolerance().isRelative()) {
             allowed = e.tolerance().relative() * Math.abs(expected);
-            tolText = String.format("%.3g relative", e.tolerance().relative());
+            tolText = String.format(Locale.ROOT, "%.3g relative", e.tolerance().relative());
         } else {
             Double abs = constant(model, e.tolerance().absolute(), c.values());
             allowed = abs == null ? Double.NaN : Math.abs(abs);
-            tolText = unit.equals("1") ? String.format("%.6g", allowed) + " absolute" : withUnit(String.format("%.6g", allowed), unit);
+            dev.plumb.units.Unit tolUnit = FileUnits.written(e.tolerance().absolute());
+            if (tolUnit == null || !tolUnit.dimension().equals(shown.dimension())) tolUnit = shown;
+            tolText = FileUnits.format(allowed, tolUnit, "%.6g") + " absolute";
         }
         double diff = Math.abs(value - expected);
         double rel = expected != 0 ? diff / Math.abs(expected) : diff;
         Status status = diff <= allowed ? Status.HOLDS : Status.FAILS;
-        String message = String.format("%s%s: numeric %s, expected %s, relative difference %.3g (allowed %s)",
-                ExprPrinter.print(e.lhs()), implicit(model) ? "" : " at " + c.label(), withUnit(String.format("%.10g", value), unit),
-                withUnit(String.format("%.10g", expected), unit), rel, tolText);
+        String message = String.format(Locale.ROOT, "%s%s: numeric %s, expected %s, relative difference %.3g (allowed %s)",
+                ExprPrinter.print(e.lhs()), implicit(model) ? "" : " at " + c.label(), FileUnits.format(value, shown, "%.10g"),
+                FileUnits.format(expected, shown, "%.10g"), rel, tolText);
         Check check = Check.of("expect", label, e.span(), status, message)
                 .with("case", c.label()).with("numeric", value).with("expected", expected).with("rel_diff", rel).with("unit", unit);
+        if (!shown.dimension().isNone() && !shown.text().equals(unit)) {
+            check = check.with("shown_unit", shown.text()).with("shown_numeric", value / shown.factor())
+                    .with("shown_expected", expected / shown.factor());
+        }
         if (tight != null) {
             try {
                 check = check.with("error_estimate", Math.abs(tight.evaluate(e.lhs()) - value));
@@ -319,11 +353,6 @@ public final class NumericEngine {
     /** How a note about one case begins: nothing for the implicit case, else the case's label. */
     private static String prefix(Model model, String label) {
         return implicit(model) ? "" : "case '" + label + "': ";
-    }
-
-    /** A number with its SI unit; a pure number goes without the "1". */
-    private static String withUnit(String number, String unit) {
-        return unit == null || unit.isEmpty() || unit.equals("1") ? number : number + " " + unit;
     }
 
     private static String label(Stmt.Expect e) {

@@ -112,7 +112,7 @@ final class PointEvaluator {
             double v = states.derivativesAt(x, y, c)[form.base[j] + form.order[j] - 1];
             if (!Double.isFinite(v)) {
                 throw new SolveException(c.span(), ExprPrinter.print(c) + " is not finite at " + form.coordinate.name() + " = "
-                        + SeriesStart.trim(x) + " (a singular point of the relations)");
+                        + form.position(x, dev.plumb.model.FileUnits.SHORT) + " (a singular point of the relations)");
             }
             return v;
         }

@@ -5,9 +5,12 @@ import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Stmt;
 import dev.plumb.model.Check;
 import dev.plumb.model.ConstantEvaluator;
+import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Status;
 import dev.plumb.model.SweepSpec;
+import dev.plumb.units.Dimension;
+import dev.plumb.units.Unit;
 import dev.plumb.units.UnitCatalog;
 import dev.plumb.units.UnitException;
 import dev.plumb.units.UnitParser;
@@ -96,45 +99,43 @@ public final class Sequences {
             int column = indexOf(columns, ExprPrinter.print(e.lhs()));
             Extremum x = extremum(model, spec, e, column, columns.get(column), points, closedForms, options);
             if (x != null) extrema.add(x);
-            checks.add(check(model, spec, paramUnit, e, columns.get(column), x, points));
+            checks.add(check(model, spec, e, columns.get(column), x, points));
         }
         return new Result(spec, paramUnit, columns, points, extrema);
     }
 
-    /** Every shown quantity (each show line its own column), then each extremum's quantity not shown already. */
+    /**
+     * Every shown quantity (each show line its own column, in its unit or else the file's unit for the
+     * quantity), then each extremum's quantity not shown already (in the expectation's unit).
+     */
     private static List<Column> columns(Model model, List<Stmt.Expect> expects) {
+        FileUnits units = FileUnits.of(model);
         List<Column> out = new ArrayList<>();
         for (Stmt.Show s : model.shows()) {
-            String unit = UnitCatalog.siName(model.dimensionOf(s.expr()));
-            String shown = s.unit() == null ? null : s.unit().text();
-            double factor = 1.0;
-            if (shown != null) {
+            Unit shown = null;
+            if (s.unit() != null) {
                 try {
-                    factor = UnitParser.parse(shown).factor();
+                    shown = UnitParser.parse(s.unit().text());
                 } catch (UnitException e) {
-                    shown = null;
+                    // Reported by the unit check; the file's unit for the quantity stands in.
                 }
             }
-            out.add(new Column(ExprPrinter.print(s.expr()), s.expr(), unit, shown, factor));
+            out.add(column(model, s.expr(), shown != null ? shown : units.forUnshown(s.expr())));
         }
         for (Stmt.Expect e : expects) {
             if (indexOf(out, ExprPrinter.print(e.lhs())) >= 0) continue;
-            String shown = quantityUnit(e.expected());
-            double factor = 1.0;
-            if (shown != null) {
-                try {
-                    factor = UnitParser.parse(shown).factor();
-                } catch (UnitException ex) {
-                    shown = null;
-                }
-            }
-            out.add(new Column(ExprPrinter.print(e.lhs()), e.lhs(), UnitCatalog.siName(model.dimensionOf(e.lhs())), shown, factor));
+            Unit shown = FileUnits.written(e.expected());
+            if (shown == null || !shown.dimension().equals(model.dimensionOf(e.lhs()))) shown = units.forQuantity(e.lhs());
+            out.add(column(model, e.lhs(), shown));
         }
         return out;
     }
 
-    private static String quantityUnit(Expr e) {
-        return e instanceof Expr.Quantity q ? q.unit() : null;
+    /** A column shown in {@code shown}; a column in SI names no second unit. */
+    private static Column column(Model model, Expr quantity, Unit shown) {
+        String unit = UnitCatalog.siName(model.dimensionOf(quantity));
+        boolean inSi = shown.factor() == 1.0 && (shown.text().equals(unit) || shown.dimension().isNone());
+        return new Column(ExprPrinter.print(quantity), quantity, unit, inSi ? null : shown.text(), inSi ? 1.0 : shown.factor());
     }
 
     private static int indexOf(List<Column> columns, String expr) {
@@ -285,7 +286,7 @@ public final class Sequences {
         return log ? Math.exp(t) : t;
     }
 
-    private static Check check(Model model, SweepSpec spec, String paramUnit, Stmt.Expect e, Column col, Extremum x, List<Point> points) {
+    private static Check check(Model model, SweepSpec spec, Stmt.Expect e, Column col, Extremum x, List<Point> points) {
         String label = e.label().present() ? e.label().name() : "line " + e.span().line();
         String what = e.extremum().word() + " " + col.expr() + " over " + spec.label();
         if (x == null) {
@@ -298,14 +299,11 @@ public final class Sequences {
             return Check.of("expect", label, e.span(), Status.FAILS, "the expected value is not a fixed number").with("sweep", spec.label());
         }
         String unit = col.unit();
-        String shown = quantityUnit(e.expected());
-        double factor = 1.0;
-        if (shown != null) {
-            try {
-                factor = UnitParser.parse(shown).factor();
-            } catch (UnitException ex) {
-                shown = null;
-            }
+        // In the expectation's own unit (else the column's), SI beside, as every other echoed value.
+        Unit shown = FileUnits.written(e.expected());
+        if (shown == null || !shown.dimension().equals(model.dimensionOf(e.lhs()))) {
+            shown = col.shownUnit() != null ? new Unit(col.shownUnit(), col.shownFactor(), model.dimensionOf(e.lhs()))
+                    : FileUnits.si(model.dimensionOf(e.lhs()));
         }
         double allowed;
         String tolText;
@@ -315,23 +313,19 @@ public final class Sequences {
         } else {
             Double abs = constant(model, e.tolerance().absolute(), spec.point(0));
             allowed = abs == null ? Double.NaN : Math.abs(abs);
-            tolText = String.format(Locale.ROOT, "%.6g %s absolute", allowed / factor, shown != null ? shown : unit);
+            tolText = FileUnits.format(allowed, shown, "%.6g") + " absolute";
         }
         double diff = Math.abs(x.value() - expected);
         double rel = expected != 0 ? diff / Math.abs(expected) : diff;
         Status status = diff <= allowed ? Status.HOLDS : Status.FAILS;
-        double pf = spec.unit() != null ? spec.factor() : 1.0;
+        Dimension paramDimension = model.symbol(spec.param()).map(dev.plumb.model.Symbol::dimension).orElse(Dimension.NONE);
+        Unit paramIn = spec.unit() != null ? new Unit(spec.unit(), spec.factor(), paramDimension) : FileUnits.si(paramDimension);
         String message = String.format(Locale.ROOT, "%s: %s at %s = %s, expected %s, relative difference %.3g (allowed %s); %s",
-                what, inUnit(x.value(), factor, shown != null ? shown : unit), spec.param(), inUnit(x.at(), pf, paramUnit),
-                inUnit(expected, factor, shown != null ? shown : unit), rel, tolText, x.how());
+                what, FileUnits.format(x.value(), shown, "%.10g"), spec.param(), FileUnits.format(x.at(), paramIn, "%.10g"),
+                FileUnits.format(expected, shown, "%.10g"), rel, tolText, x.how());
         return Check.of("expect", label, e.span(), status, message).with("sweep", spec.label()).with("extremum", e.extremum().word())
                 .with("numeric", x.value()).with("expected", expected).with("rel_diff", rel).with("unit", unit)
                 .with("at", x.at()).with("at_end", x.atEnd());
-    }
-
-    private static String inUnit(double si, double factor, String unit) {
-        String n = String.format(Locale.ROOT, "%.10g", si / factor);
-        return unit == null || unit.isEmpty() || unit.equals("1") ? n : n + " " + unit;
     }
 
     private static Double constant(Model model, Expr e, Map<String, Double> values) {

@@ -12,9 +12,17 @@ final class SeriesStart {
 
     /** The state at {@code x} = a + h, started at {@code a}. */
     record Result(double a, double h, double x, double[] y) {
-        /** How the state was obtained; formatted only when asked for (a sweep integrates thousands of starts and reads none). */
-        String description() {
-            return String.format("series start on [%s, %s%+.3g] (collocation degree %d, checked against %d)", trim(a), trim(a), h, HIGH, LOW);
+        /**
+         * How the state was obtained, the interval in the file's unit for the coordinate (the length in SI beside);
+         * formatted only when asked for (a sweep integrates thousands of starts and reads none).
+         */
+        String description(Formulation form) {
+            dev.plumb.units.Unit u = form.units.coordinate();
+            String unit = u.text().equals("1") ? "" : " " + u.text();
+            String si = u.factor() == 1.0 ? "" : String.format(java.util.Locale.ROOT, "length %.3g %s; ", h,
+                    dev.plumb.units.UnitCatalog.siName(u.dimension()));
+            return String.format(java.util.Locale.ROOT, "series start on [%s, %s%+.3g]%s (%scollocation degree %d, checked against %d)",
+                    trim(a / u.factor()), trim(a / u.factor()), h / u.factor(), unit, si, HIGH, LOW);
         }
     }
 

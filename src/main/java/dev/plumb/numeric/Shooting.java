@@ -198,8 +198,8 @@ final class Shooting {
         for (int i : order) {
             if (Math.abs(f[i]) <= tol || parts.size() == 2) break;
             if (i < extra) {
-                parts.add(String.format("the surface %s lies at %s = %.6g instead of at the end %.6g", CaseProblem.describe(p.surfaceBoundary),
-                        p.form.coordinate.name(), t.surfaceX, p.b));
+                parts.add(String.format("the surface %s lies at %s = %s instead of at the end %s", CaseProblem.describe(p.surfaceBoundary),
+                        p.form.coordinate.name(), p.form.position(t.surfaceX, "%.6g"), p.form.position(p.b, "%.6g")));
                 continue;
             }
             CaseProblem.Condition c = p.conditions.get(i - extra);
@@ -210,12 +210,13 @@ final class Shooting {
                 String sides;
                 try {
                     double l = ev.evaluate(c.boundary().equation().lhs()), r = ev.evaluate(c.boundary().equation().rhs());
-                    dev.plumb.units.Dimension d = p.form.model.dimensionOf(c.boundary().equation().lhs());
-                    sides = " (" + CaseProblem.quantity(l, null, d) + " against " + CaseProblem.quantity(r, null, d) + ")";
+                    dev.plumb.units.Unit u = p.form.units.forQuantity(c.boundary().equation().lhs());
+                    sides = " (" + dev.plumb.model.FileUnits.format(l, u, "%.6g") + " against " + dev.plumb.model.FileUnits.format(r, u, "%.6g") + ")";
                 } catch (SolveException unavailable) {
                     sides = "";
                 }
-                parts.add(String.format("%s is missed by %.3g of its scale %.3g%s", what, Math.abs(f[i]), c.scale(), sides));
+                String scale = dev.plumb.model.FileUnits.format(c.scale(), p.form.units.forQuantity(c.boundary().equation().lhs()), "%.3g");
+                parts.add(String.format(java.util.Locale.ROOT, "%s is missed by %.3g of its scale %s%s", what, Math.abs(f[i]), scale, sides));
             }
         }
         return parts.isEmpty() ? "the mismatch is " + String.format("%.3g", norm(f)) : String.join(", and ", parts);

@@ -2,10 +2,10 @@ package dev.plumb.numeric;
 
 import dev.plumb.lang.Diagnostic;
 import dev.plumb.lang.Stmt;
+import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import dev.plumb.units.Dimension;
-import dev.plumb.units.UnitCatalog;
 import dev.plumb.units.UnitException;
 import dev.plumb.units.UnitParser;
 import java.util.List;
@@ -26,16 +26,18 @@ final class Signs {
     }
 
     static void check(Model model, String caseLabel, boolean implicitCase, Solution solution, List<Diagnostic> into) {
+        FileUnits units = null;
         for (Map.Entry<String, double[]> e : solution.lowest().entrySet()) {
             if (!(model.symbols().get(e.getKey()) instanceof Symbol.Profile p)) continue;
             String why = assumedPositive(p);
             double lowest = e.getValue()[0], at = e.getValue()[1], scale = e.getValue()[2];
             if (why == null || !(lowest < -NOISE * scale)) continue;
             Symbol.Coordinate x = model.coordinate().orElseThrow();
+            if (units == null) units = FileUnits.of(model);
             into.add(Diagnostic.warning(p.span(), (implicitCase ? "" : "case '" + caseLabel + "': ") + p.name() + " goes negative inside "
                             + "the interval, though " + why,
-                    String.format("lowest value %s = %.6g %s at %s = %.9g %s", p.name(), lowest, UnitCatalog.siName(p.dimension()),
-                            x.name(), at, UnitCatalog.siName(x.dimension())),
+                    String.format("lowest value %s = %s at %s = %s", p.name(), units.symbolValue(lowest, p.name(), "%.6g"),
+                            x.name(), units.position(at, "%.9g")),
                     "check the signs of the relations and the boundary values; a start value too small to hold the body up "
                             + "also does this"));
         }

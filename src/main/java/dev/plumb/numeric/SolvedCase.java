@@ -63,19 +63,21 @@ final class SolvedCase implements Solution {
                     .append(p.form.coordinate.name()).append(" = ");
             for (int i = 0; i < p.integration.breaks.length; i++) {
                 if (i > 0) sb.append(", ");
-                sb.append(String.format("%.9g", p.integration.breaks[i]));
+                sb.append(p.form.position(p.integration.breaks[i], "%.9g"));
             }
             sb.append(")");
         }
         if (p.surface != null) {
-            sb.append("; surface ").append(p.surface.description()).append(" = ").append(SeriesStart.trim(p.surface.value()))
+            sb.append("; surface ").append(p.surface.description()).append(" = ")
+                    .append(p.form.componentValue(p.surface.index(), p.surface.value(), dev.plumb.model.FileUnits.SHORT))
                     .append(" found at ").append(p.form.coordinate.name()).append(" = ")
-                    .append(String.format("%.12g", r.trajectory().surfaceX))
+                    .append(p.form.position(r.trajectory().surfaceX, "%.12g"))
                     .append(r.trajectory().surfaceByApproach
                             ? " (the relations are undefined past it, so it was approached until the step size reached "
-                            + String.format("%.0e", p.integration.minStep) + ")"
+                            + p.form.position(p.integration.minStep, "%.0e") + ")"
                             : !Double.isNaN(r.trajectory().surfaceExponent) ? String.format(" (the last stretch integrated in w = |%s - %s|^(1/p), "
-                            + "which reaches it linearly; p = %.6g from the relations)", p.surface.description(), SeriesStart.trim(p.surface.value()),
+                            + "which reaches it linearly; p = %.6g from the relations)", p.surface.description(),
+                            p.form.componentValue(p.surface.index(), p.surface.value(), dev.plumb.model.FileUnits.SHORT),
                             r.trajectory().surfaceExponent)
                             : " by event detection");
         }

@@ -3,6 +3,7 @@ package dev.plumb.numeric;
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Span;
+import dev.plumb.model.FileUnits;
 import java.util.Map;
 import java.util.TreeMap;
 
@@ -93,19 +94,21 @@ final class Trajectory implements PointEvaluator.States {
         if (p.surface != null) {
             if (!stop.atSurface() && !Double.isNaN(stop.asymptote())) {
                 throw new SolveException(p.surfaceBoundary.span(), "the surface " + p.surface.description() + " = "
-                        + SeriesStart.trim(p.surface.value()) + " is never reached: " + p.form.componentName(p.surface.index())
-                        + " approaches it without arriving, falling by a factor e every " + String.format("%.4g", stop.asymptote())
-                        + " near " + p.form.coordinate.name() + " = " + String.format("%.6g", stop.x())
+                        + p.form.componentValue(p.surface.index(), p.surface.value(), FileUnits.SHORT) + " is never reached: "
+                        + p.form.componentName(p.surface.index())
+                        + " approaches it without arriving, falling by a factor e every " + p.form.position(stop.asymptote(), "%.4g")
+                        + " near " + p.form.coordinate.name() + " = " + p.form.position(stop.x(), "%.6g")
                         + (p.unknowns.isEmpty() ? "" : " (with " + p.describeUnknowns(z) + ")")
                         + ": the relations put no surface at a finite distance");
             }
             if (!stop.atSurface()) {
-                String reach = Double.isNaN(p.b) ? String.format(" (the search goes to 1e4 times the length scale of the balance, %.3g, "
-                        + "or 1e9 times the series start, whichever is further; 'guess %s = ...' sets the scale)", p.scaleX, p.form.freeEnd.name())
+                String reach = Double.isNaN(p.b) ? String.format(" (the search goes to 1e4 times the length scale of the balance, %s, "
+                        + "or 1e9 times the series start, whichever is further; 'guess %s = ...' sets the scale)", p.form.position(p.scaleX, "%.3g"),
+                        p.form.freeEnd.name())
                         : String.format(" (%.0f times the interval)", CaseProblem.FIXED_SURFACE_REACH);
                 throw new SolveException(p.surfaceBoundary.span(), "the surface " + p.surface.description() + " = "
-                        + SeriesStart.trim(p.surface.value()) + " is never reached: integrated from " + p.form.coordinate.name() + " = "
-                        + SeriesStart.trim(p.a) + " to " + String.format("%.6g", end) + reach
+                        + p.form.componentValue(p.surface.index(), p.surface.value(), FileUnits.SHORT) + " is never reached: integrated from "
+                        + p.form.coordinate.name() + " = " + p.form.position(p.a, FileUnits.SHORT) + " to " + p.form.position(end, "%.6g") + reach
                         + (p.unknowns.isEmpty() ? "" : " with " + p.describeUnknowns(z)) + "; there " + p.integration.describe(stop.y()));
             }
             t.surfaceX = stop.x();
@@ -121,7 +124,7 @@ final class Trajectory implements PointEvaluator.States {
 
     /** How the integration started: regularly, or from a series at a singular point. */
     String startNote() {
-        return series == null ? "regular start" : series.description();
+        return series == null ? "regular start" : series.description(problem.form);
     }
 
     boolean surfaceReached() {
@@ -138,8 +141,8 @@ final class Trajectory implements PointEvaluator.States {
             if (fixedEnd || (past && Math.abs(x - surfaceX) <= 1e-9 * problem.scaleX)) return surfaceState.clone();
             if (past) {
                 throw new SolveException(at(where), (where == null ? "the point " : ExprPrinter.print(where) + " asks for the point ")
-                        + problem.form.coordinate.name() + " = " + SeriesStart.trim(x) + ", beyond the surface at "
-                        + String.format("%.9g", surfaceX) + ": plumb does not extrapolate past the end of the interval", true);
+                        + problem.form.coordinate.name() + " = " + problem.form.position(x, FileUnits.SHORT) + ", beyond the surface at "
+                        + problem.form.position(surfaceX, "%.9g") + ": plumb does not extrapolate past the end of the interval", true);
             }
         }
         boolean before = problem.forward() ? x < problem.a : x > problem.a;
@@ -147,8 +150,8 @@ final class Trajectory implements PointEvaluator.States {
                 && (problem.forward() ? x > problem.b : x < problem.b) && Math.abs(x - problem.b) > 1e-12 * problem.scaleX;
         if (before || after) {
             throw new SolveException(at(where), (where == null ? "the point " : ExprPrinter.print(where) + " asks for the point ")
-                    + problem.form.coordinate.name() + " = " + SeriesStart.trim(x) + ", outside the interval from "
-                    + SeriesStart.trim(problem.a) + " to " + SeriesStart.trim(problem.b) + ": plumb does not extrapolate", true);
+                    + problem.form.coordinate.name() + " = " + problem.form.position(x, FileUnits.SHORT) + ", outside the interval from "
+                    + problem.form.position(problem.a, FileUnits.SHORT) + " to " + problem.form.position(problem.b, FileUnits.SHORT) + ": plumb does not extrapolate", true);
         }
         problem.load(constants);
         double from;

@@ -69,7 +69,10 @@ public record Analysis(SourceFile source, Model model, List<Diagnostic> diagnost
     /** A propagated standard uncertainty (SI): first order from the sensitivities, and Monte Carlo. */
     public record Uncertainty(double firstOrder, double monteCarlo, double samplingError, int samples, long seed) { }
 
-    /** A profile sampled across the interval for plotting, in SI; {@code closedForm} may be null. */
+    /**
+     * A profile sampled across the interval for plotting, in the file's units ({@code coordinateUnit} the
+     * coordinate's declared unit, {@code unit} the profile's); {@code closedForm} may be null.
+     */
     public record ProfileSample(String profile, String coordinate, String coordinateUnit, String unit, double[] x,
                                 double[] numeric, double[] closedForm) { }
 

@@ -78,11 +78,14 @@ public final class TextReport {
             int width = Math.max(14, t.rows().stream().mapToInt(r -> r.expr().length()).max().orElse(0));
             String row = "    %-" + width + "s %-14s %-14s %-10s %-10s %s%n";
             out.append(String.format(Locale.ROOT, row, "quantity", "closed form", "numeric", "rel. diff", "est. error", "unit"));
+            // A quantity shown in two units has a row in each; its sensitivities and uncertainty are printed once.
+            java.util.Set<String> explained = new java.util.HashSet<>();
             for (Analysis.Row r : t.rows()) {
                 double f = r.shownUnit() != null ? r.shownFactor() : 1.0;
                 String unit = r.shownUnit() != null ? r.shownUnit() : r.unit();
                 out.append(String.format(Locale.ROOT, row, r.expr(),
                         num(r.closedForm(), f), num(r.numeric(), f), small(r.relDiff()), relative(r.errorEstimate(), r.numeric()), unit));
+                if (!explained.add(r.expr())) continue;
                 if (!r.sensitivities().isEmpty()) {
                     StringBuilder sb = new StringBuilder();
                     r.sensitivities().forEach((p, v) -> sb.append(String.format(Locale.ROOT, "  %s %.4f", p, Math.abs(v) < 5e-9 ? 0.0 : v)));

@@ -55,7 +55,7 @@ final class SweepRoute {
                 parts.add(p + " could not be swept (" + why + ")");
                 continue;
             }
-            String range = p + " from " + value(s.from()) + " to " + value(s.to()) + unit;
+            String range = p + " from " + range(p, s.from(), s.to(), unit);
             if (!s.straight()) {
                 double a = endExponent(q, base, s, s.from(), s.localSlopes()[0]);
                 double b = endExponent(q, base, s, s.to(), s.localSlopes()[s.localSlopes().length - 1]);
@@ -128,6 +128,14 @@ final class SweepRoute {
             return new java.math.BigDecimal(v).round(new java.math.MathContext(4)).stripTrailingZeros().toPlainString();
         }
         return String.format(Locale.ROOT, "%.4g", v);
+    }
+
+    /** A swept range in the file's unit for the parameter, with SI beside when that unit is not SI. */
+    private String range(String p, double from, double to, String siUnit) {
+        dev.plumb.units.Unit u = dev.plumb.model.FileUnits.of(model).forSymbol(p);
+        String si = value(from) + " to " + value(to) + siUnit;
+        if (u.factor() == 1.0 || u.dimension().isNone()) return si;
+        return value(from / u.factor()) + " to " + value(to / u.factor()) + " " + u.text() + " (" + si + ")";
     }
 
     private String unit(String p) {
