@@ -30,6 +30,10 @@ public final class CheckCommand implements Callable<Integer> {
             defaultValue = "text")
     Format format;
 
+    @Option(names = "--profiles", description = "with --format json: each case's profiles sampled across the interval "
+            + "(coordinate, numeric and closed-form values, SI), as in the report's JSON; costs a solve per case")
+    boolean profiles;
+
     @CommandLine.Mixin
     AnalysisOptions analysis;
 
@@ -43,7 +47,7 @@ public final class CheckCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        Analyzer analyzer = analysis.analyzer(spec.commandLine(), false);
+        Analyzer analyzer = analysis.analyzer(spec.commandLine(), profiles && format == Format.json);
         List<Analysis> results = new ArrayList<>();
         int status = 0;
         TextReport text = new TextReport(noColor ? Style.PLAIN : Style.detect());
