@@ -185,9 +185,14 @@ public final class CaseData {
         return si == null || !Double.isFinite(si) ? "" : twelve(si / factor);
     }
 
-    /** Twelve significant digits, as the sweep tables. */
+    /** Twelve significant digits, without trailing zeros after the point ({@code 5797500}, not {@code 5797500.00000}). */
     static String twelve(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.12g", v) : "";
+        if (!Double.isFinite(v)) return "";
+        String s = String.format(Locale.ROOT, "%.12g", v);
+        int e = s.indexOf('e');
+        String mantissa = e < 0 ? s : s.substring(0, e);
+        if (mantissa.contains(".")) mantissa = mantissa.replaceAll("0+$", "").replaceAll("\\.$", "");
+        return e < 0 ? mantissa : mantissa + s.substring(e);
     }
 
     /** Every digit of the double: {@code Double.parseDouble} gives back the same value. */

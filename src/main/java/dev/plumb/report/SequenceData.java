@@ -6,7 +6,6 @@ import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 
@@ -54,6 +53,6 @@ public final class SequenceData {
     }
 
     private static String num(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.12g", v) : "";
+        return CaseData.twelve(v);
     }
 }
