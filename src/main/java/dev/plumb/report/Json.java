@@ -51,6 +51,9 @@ public final class Json {
         if (v instanceof Long l) return NODES.numberNode(l);
         if (v instanceof Short s) return NODES.numberNode(s);
         if (v instanceof Byte b) return NODES.numberNode(b);
+        if (v instanceof java.math.BigInteger b) return NODES.numberNode(b);
+        if (v instanceof java.math.BigDecimal b) return NODES.numberNode(b);
+        if (v instanceof Number n) return number(n.doubleValue());
         if (v instanceof Boolean b) return NODES.booleanNode(b);
         if (v instanceof Map<?, ?> m) {
             ObjectNode o = NODES.objectNode();
