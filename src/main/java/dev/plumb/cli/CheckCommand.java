@@ -30,6 +30,10 @@ public final class CheckCommand implements Callable<Integer> {
             defaultValue = "text")
     Format format;
 
+    @Option(names = "--profiles", description = "with --format json: each case's profiles sampled across the interval "
+            + "(coordinate, numeric and closed-form values, SI), as in the report's JSON; costs a solve per case")
+    boolean profiles;
+
     @CommandLine.Mixin
     AnalysisOptions analysis;
 
@@ -48,7 +52,8 @@ public final class CheckCommand implements Callable<Integer> {
         TextReport text = new TextReport(noColor ? Style.PLAIN : Style.detect());
         // On a terminal: the unit checks as soon as they are final, and a progress line for long stages.
         TerminalProgress progress = format == Format.text && TerminalProgress.wanted() ? new TerminalProgress(out, err, text) : null;
-        Analyzer analyzer = analysis.analyzer(spec.commandLine(), false, progress != null ? progress : Analyzer.Listener.NONE);
+        Analyzer analyzer = analysis.analyzer(spec.commandLine(), profiles && format == Format.json,
+                progress != null ? progress : Analyzer.Listener.NONE);
         for (Path f : files) {
             if (progress != null) progress.reset();
             Analysis a = analysis.withinTimeout(() -> analyze(analyzer, f), f.toString(), err);

@@ -1,6 +1,7 @@
 package dev.plumb.cli;
 
 import dev.plumb.report.Analysis;
+import dev.plumb.report.CaseData;
 import dev.plumb.report.DerivationDocument;
 import dev.plumb.report.DiagnosticPrinter;
 import dev.plumb.report.HtmlMarkup;
@@ -8,6 +9,7 @@ import dev.plumb.report.Json;
 import dev.plumb.report.JsonReport;
 import dev.plumb.report.LatexMarkup;
 import dev.plumb.report.MarkdownMarkup;
+import dev.plumb.report.SequenceData;
 import dev.plumb.report.Markup;
 import dev.plumb.report.Style;
 import java.io.IOException;
@@ -24,14 +26,19 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
-/** {@code plumb report FILE --format md|tex|html|json --out DIR}: the derivation document. */
+/**
+ * {@code plumb report FILE --format md|tex|html|json|csv --out DIR}: the derivation document; {@code csv}
+ * writes the data (each case's table, each profile's samples, each sweep) as CSV files.
+ */
 @Command(name = "report", mixinStandardHelpOptions = true, versionProvider = Version.class,
         description = {"Write the derivation document: declarations, relations, every check with its verdict,",
                 "closed forms with their trail, cases closed-form beside numeric, plots, and sources.",
+                "'csv' writes the data: each case's table (case-LABEL.csv), each profile's samples (profile-CASE-NAME.csv)",
+                "and each sweep (sweep-LABEL.csv), in the file's units with SI beside.",
                 "Nothing is written when the input cannot be understood; existing files are replaced only when complete."})
 public final class ReportCommand implements Callable<Integer> {
 
-    enum Format { md, tex, html, json }
+    enum Format { md, tex, html, json, csv }
 
     @Parameters(index = "0", paramLabel = "FILE", description = "the plumb file")
     Path file;
@@ -75,6 +82,10 @@ public final class ReportCommand implements Callable<Integer> {
                     files.put(base + ".json", Json.write(JsonReport.toMap(a, analysis.strict)).getBytes(StandardCharsets.UTF_8));
                     continue;
                 }
+                if (f == Format.csv) {
+                    files.putAll(data(a));
+                    continue;
+                }
                 Markup markup = switch (f) {
                     case md -> new MarkdownMarkup();
                     case tex -> new LatexMarkup();
@@ -107,6 +118,17 @@ public final class ReportCommand implements Callable<Integer> {
         } catch (IOException e) {
             err.println("plumb: cannot finish the replacement a stopped run began in " + out + ": " + reason(e));
         }
+    }
+
+    /** The data files of {@code --format csv}: each case's table and profiles, then each sweep. */
+    private static Map<String, byte[]> data(Analysis a) throws IOException {
+        Map<String, byte[]> out = new LinkedHashMap<>();
+        for (Analysis.CaseTable t : a.cases()) {
+            out.put(CaseData.tableFileName(t), CaseData.table(t));
+            for (Analysis.ProfileSample p : t.profiles()) out.put(CaseData.profileFileName(t, p), CaseData.profile(a.model(), p));
+        }
+        for (var r : a.sweeps()) out.put(SequenceData.fileName(r), SequenceData.csv(r));
+        return out;
     }
 
     /** The name of an output that would replace the input file itself (same file, however it is reached), or null. */

@@ -94,6 +94,7 @@ public final class JsonReport {
                 rows.add(q);
             }
             m.put("quantities", rows);
+            if (!t.profiles().isEmpty()) m.put("profiles", t.profiles().stream().map(JsonReport::profile).toList());
             cases.add(m);
         }
         root.put("cases", cases);
@@ -101,5 +102,21 @@ public final class JsonReport {
         if (!a.scales().isEmpty()) root.put("scales", a.scales());
         if (!a.notes().isEmpty()) root.put("notes", a.notes());
         return root;
+    }
+
+    /**
+     * A sampled profile: the coordinate's values and the profile's numeric values (and closed-form
+     * values, null when none was derived) at them, all in the SI units named beside.
+     */
+    private static Map<String, Object> profile(Analysis.ProfileSample p) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("profile", p.profile());
+        m.put("unit", p.unit());
+        m.put("coordinate", p.coordinate());
+        m.put("coordinate_unit", p.coordinateUnit());
+        m.put("coordinate_values", p.x());
+        m.put("numeric", p.numeric());
+        m.put("closed_form", p.closedForm());
+        return m;
     }
 }

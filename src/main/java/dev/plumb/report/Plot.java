@@ -27,7 +27,31 @@ public final class Plot {
     }
 
     public static byte[] pdf(String title, String xLabel, String yLabel, List<Series> series) throws IOException {
-        return encode(chart(title, xLabel, yLabel, series), VectorGraphicsEncoder.VectorGraphicsFormat.PDF);
+        return reproducibleId(encode(chart(title, xLabel, yLabel, series), VectorGraphicsEncoder.VectorGraphicsFormat.PDF));
+    }
+
+    /**
+     * The PDF with its file identifier made from its content: the encoder writes a random /ID, so two
+     * runs would differ. ISO 32000-1 (14.4) suggests an MD5 digest of the file's content, which is what
+     * replaces it here (same length, so no offset moves).
+     */
+    private static byte[] reproducibleId(byte[] pdf) {
+        String text = new String(pdf, StandardCharsets.ISO_8859_1);
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("/ID \\[<([0-9A-Fa-f]+)> <([0-9A-Fa-f]+)>\\]").matcher(text);
+        if (!m.find()) return pdf;
+        String id;
+        try {
+            byte[] digest = java.security.MessageDigest.getInstance("MD5").digest(java.util.Arrays.copyOf(pdf, m.start()));
+            id = java.util.HexFormat.of().withUpperCase().formatHex(digest);
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new IllegalStateException("MD5 is required of every Java platform", e);
+        }
+        if (id.length() != m.group(1).length() || id.length() != m.group(2).length()) return pdf;
+        byte[] out = pdf.clone();
+        byte[] idBytes = id.getBytes(StandardCharsets.ISO_8859_1);
+        System.arraycopy(idBytes, 0, out, m.start(1), idBytes.length);
+        System.arraycopy(idBytes, 0, out, m.start(2), idBytes.length);
+        return out;
     }
 
     /** The SVG as text without its XML prolog, ready to inline in HTML. */

@@ -6,14 +6,13 @@ import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 
 /**
  * A sequence as data: one row per point, the swept parameter and every quantity, each in the unit the
- * file wrote or showed it in (named in the header), with the SI value beside; a point that did not
- * solve has empty cells and its reason in the last column.
+ * file wrote or showed it in (named in the header, twelve significant digits), with the SI value beside
+ * (every digit of the double); a point that did not solve has empty cells and its reason in the last column.
  */
 public final class SequenceData {
 
@@ -44,7 +43,7 @@ public final class SequenceData {
                     Sequences.Column c = r.columns().get(k);
                     double v = p.failure() == null ? p.quantities()[k] : Double.NaN;
                     row.add(num(Sequences.shown(c, v)));
-                    if (c.shownUnit() != null) row.add(num(v));
+                    if (c.shownUnit() != null) row.add(CaseData.exact(v));
                 }
                 row.add(p.failure() == null ? "" : p.failure());
                 csv.printRecord(row);
@@ -54,6 +53,6 @@ public final class SequenceData {
     }
 
     private static String num(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.12g", v) : "";
+        return CaseData.twelve(v);
     }
 }

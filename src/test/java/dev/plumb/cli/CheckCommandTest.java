@@ -75,6 +75,8 @@ class CheckCommandTest {
         Map<String, Object> balance = units.stream().filter(c -> "balance".equals(c.get("label"))).findFirst().orElseThrow();
         assertEquals(11.0, balance.get("line"));
         assertTrue(doc.containsKey("derived") && doc.containsKey("cases"), doc.keySet()::toString);
+        // Kept small by default: profile samples only with --profiles (DataExportTest).
+        assertTrue(list(doc, "cases").stream().noneMatch(c -> c.containsKey("profiles")), doc.get("cases")::toString);
     }
 
     @Test
