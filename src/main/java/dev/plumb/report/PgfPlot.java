@@ -129,14 +129,19 @@ public final class PgfPlot {
         return w;
     }
 
-    /** A number as pgfplots reads it: shortest exact decimal, exponent written with e. */
+    /** A number as pgfplots reads it: the shortest decimal that gives the double back, large and small ones as 1.5e-13. */
     static String tex(double v) {
         if (v == 0) return "0";
-        BigDecimal d = new BigDecimal(Double.toString(v)).stripTrailingZeros();
-        String unscaled = d.unscaledValue().toString();
-        int exp = -d.scale();
-        if (exp >= 0 && exp <= 6) return unscaled + "0".repeat(exp);
-        return unscaled + "e" + exp;
+        // Not Double.toString: before Java 19 it can give more digits than needed (8e23 prints as 7.999999999999999E23).
+        BigDecimal d = null;
+        for (int digits = 1; digits <= 17 && d == null; digits++) {
+            BigDecimal r = new BigDecimal(v).round(new java.math.MathContext(digits));
+            if (r.doubleValue() == v) d = r.stripTrailingZeros();
+        }
+        String digits = d.unscaledValue().abs().toString();
+        int power = digits.length() - 1 - d.scale();
+        if (power >= -3 && power <= 6) return d.toPlainString();
+        return (d.signum() < 0 ? "-" : "") + digits.charAt(0) + (digits.length() > 1 ? "." + digits.substring(1) : "") + "e" + power;
     }
 
     /** The data file: x, then each curve and the residual, in the axes' units. */

@@ -86,6 +86,11 @@ public record Ticks(double min, double max, List<Double> ticks, List<Label> labe
         int a = (int) (loose ? Math.floor(Math.log10(lo) + 1e-9) : Math.ceil(Math.log10(lo) - 1e-9));
         int b = (int) (loose ? Math.ceil(Math.log10(hi) - 1e-9) : Math.floor(Math.log10(hi) + 1e-9));
         int stride = Math.max(1, (int) Math.ceil((b - a) / 7.0));
+        if (loose) {
+            // A loose axis ends on ticks, so its ends move out to multiples of the stride.
+            a = Math.floorDiv(a, stride) * stride;
+            b = -Math.floorDiv(-b, stride) * stride;
+        }
         List<Double> values = new ArrayList<>();
         List<Label> labels = new ArrayList<>();
         for (int k = Math.floorDiv(a + stride - 1, stride) * stride; k <= b; k += stride) {

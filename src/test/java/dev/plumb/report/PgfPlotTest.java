@@ -61,6 +61,20 @@ class PgfPlotTest {
     }
 
     @Test
+    void numbersAreWrittenSoThatTheyReadBackAsTheSameDouble() {
+        assertEquals("0", PgfPlot.tex(0));
+        assertEquals("2000", PgfPlot.tex(2000));
+        assertEquals("0.25", PgfPlot.tex(0.25));
+        assertEquals("8e23", PgfPlot.tex(8e23));
+        assertEquals("-1.5e-13", PgfPlot.tex(-1.5e-13));
+        assertEquals("0.474697889721467", PgfPlot.tex(0.474697889721467));
+        assertEquals("4.74697889721467e8", PgfPlot.tex(4.74697889721467e8));
+        for (double v : new double[] {6.957e8, 1.3446551700e5, -4e-13, 1e17, 0.0012345}) {
+            assertEquals(v, Double.parseDouble(PgfPlot.tex(v)), 0, () -> PgfPlot.tex(v));
+        }
+    }
+
+    @Test
     void figuresCompileWithPdflatexAndKeepTheirTextAsTextInEmbeddedFonts(@TempDir Path dir) throws Exception {
         var pdflatex = ExternalTool.find("pdflatex");
         Assumptions.assumeTrue(pdflatex.isPresent(), "pdflatex is not installed (CI installs TeX Live from Debian's packages); skipped");

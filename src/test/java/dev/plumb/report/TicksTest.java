@@ -83,11 +83,16 @@ class TicksTest {
         assertEquals(List.of(1e17, 1e18, 1e19, 1e20), t.ticks());
         assertEquals(List.of("10^17", "10^18", "10^19", "10^20"), labels(t));
         assertTrue(t.log());
-        // 3e-5 .. 2e11 loose: decades -5 .. 12, seventeen of them; every third, at multiples of 3.
+        // 3e-5 .. 2e11 loose: decades -5 .. 12, seventeen of them; every third, at multiples of 3, and the
+        // loose ends moved out to ticks: 1e-6 .. 1e12.
         Ticks wide = Ticks.logarithmic(3e-5, 2e11, true);
-        assertEquals(List.of(1e-3, 1e0, 1e3, 1e6, 1e9, 1e12), wide.ticks());
-        assertEquals(1e-5, wide.min());
+        assertEquals(List.of(1e-6, 1e-3, 1e0, 1e3, 1e6, 1e9, 1e12), wide.ticks());
+        assertEquals(1e-6, wide.min());
         assertEquals(1e12, wide.max());
+        // Tight (a coordinate): the axis ends at the data, ticks inside only.
+        Ticks tight = Ticks.logarithmic(3e-5, 2e11, false);
+        assertEquals(List.of(1e-3, 1e0, 1e3, 1e6, 1e9), tight.ticks());
+        assertEquals(3e-5, tight.min());
     }
 
     @Test
