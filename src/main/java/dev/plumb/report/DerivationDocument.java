@@ -51,10 +51,9 @@ public final class DerivationDocument {
             m.bullets(a.notes());
         }
         sources(model);
-        m.heading(2, "Caution");
-        m.paragraph("These results are estimates for checking derivations. Where they could be applied to something that can "
-                + "hurt someone (tanks, pressure vessels, diving, structures), follow the applicable codes and standards and "
-                + "licensed engineering practice; do not rely on this report.");
+        m.footer("Caution: these results are estimates for checking derivations; where they could be applied to something that "
+                + "can hurt someone (tanks, pressure vessels, diving, structures), follow the applicable codes and standards and "
+                + "licensed engineering practice, not this report.");
         return m.finish();
     }
 
@@ -215,11 +214,8 @@ public final class DerivationDocument {
             m.table(List.of("quantity", "closed form", "numeric", "rel. diff", "unit", "∂ln Q/∂ln p", "uncertainty"), rows);
             int i = 0;
             for (Analysis.ProfileSample p : t.profiles()) {
-                List<Plot.Series> series = new ArrayList<>();
-                series.add(new Plot.Series("numeric", p.x(), p.numeric(), false));
-                if (p.closedForm() != null) series.add(new Plot.Series("closed form", p.x(), p.closedForm(), true));
-                m.figure("plot-" + t.label() + "-" + p.profile() + "-" + (i++), p.profile() + "(" + p.coordinate() + ") for case "
-                        + t.label(), p.coordinate() + " [" + p.coordinateUnit() + "]", p.profile() + " [" + p.unit() + "]", series, files);
+                Plot plot = FigureData.profile(a.model(), p);
+                m.figure("plot-" + t.label() + "-" + p.profile() + "-" + (i++), FigureData.profileCaption(p, t.label(), plot), plot, files);
             }
         }
     }
@@ -257,25 +253,10 @@ public final class DerivationDocument {
                         spec.label(), fmt(dev.plumb.numeric.Sequences.shown(col, x.value())), shown.equals("1") ? "" : shown, spec.param(),
                         fmt(x.at() / pf), unit, x.how()));
             }
-            if (!r.columns().isEmpty()) {
-                int n = spec.size();
-                boolean pair = r.columns().size() >= 2;
-                List<double[]> xs = new ArrayList<>(), ys = new ArrayList<>();
-                double[] x = new double[n], y = new double[n];
-                int used = 0;
-                for (var p : r.points()) {
-                    if (p.failure() != null) continue;
-                    double xv = pair ? dev.plumb.numeric.Sequences.shown(r.columns().get(0), p.quantities()[0]) : p.value() / pf;
-                    double yv = dev.plumb.numeric.Sequences.shown(r.columns().get(pair ? 1 : 0), p.quantities()[pair ? 1 : 0]);
-                    if (!Double.isFinite(xv) || !Double.isFinite(yv)) continue;
-                    x[used] = xv;
-                    y[used++] = yv;
-                }
-                if (used >= 2) {
-                    String xLabel = pair ? header.get(1) : header.get(0), yLabel = pair ? header.get(2) : header.get(1);
-                    m.figure("sweep-" + spec.label(), yLabel + " against " + xLabel + " along sweep " + spec.label(), xLabel, yLabel,
-                            List.of(new Plot.Series("numeric", java.util.Arrays.copyOf(x, used), java.util.Arrays.copyOf(y, used), false)), files);
-                }
+            Plot plot = FigureData.sweep(r);
+            if (plot != null) {
+                String xLabel = r.columns().size() >= 2 ? header.get(1) : header.get(0), yLabel = header.get(r.columns().size() >= 2 ? 2 : 1);
+                m.figure("sweep-" + spec.label(), yLabel + " against " + xLabel + " along sweep " + spec.label() + ".", plot, files);
             }
             files.put(SequenceData.fileName(r), SequenceData.csv(r));
         }

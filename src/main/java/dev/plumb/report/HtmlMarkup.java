@@ -1,7 +1,6 @@
 package dev.plumb.report;
 
 import dev.plumb.lang.Expr;
-import java.io.IOException;
 import java.util.List;
 import java.util.Map;
 
@@ -38,7 +37,8 @@ public final class HtmlMarkup implements Markup {
 
     @Override
     public void table(List<String> header, List<List<Cell>> rows) {
-        body.append("<table>\n<thead><tr>");
+        // The wrapper scrolls sideways on a narrow screen, so a wide table never widens the page.
+        body.append("<div class=\"scroll\"><table>\n<thead><tr>");
         header.forEach(h -> body.append("<th>").append(esc(h)).append("</th>"));
         body.append("</tr></thead>\n<tbody>\n");
         for (List<Cell> row : rows) {
@@ -51,7 +51,7 @@ public final class HtmlMarkup implements Markup {
             }
             body.append("</tr>\n");
         }
-        body.append("</tbody>\n</table>\n");
+        body.append("</tbody>\n</table></div>\n");
     }
 
     @Override
@@ -62,21 +62,27 @@ public final class HtmlMarkup implements Markup {
     }
 
     @Override
-    public void figure(String id, String caption, String xLabel, String yLabel, List<Plot.Series> series,
-                       Map<String, byte[]> files) throws IOException {
-        body.append("<figure id=\"").append(esc(id)).append("\">").append(Plot.inlineSvg(caption, xLabel, yLabel, series))
+    public void figure(String id, String caption, Plot plot, Map<String, byte[]> files) {
+        body.append("<figure id=\"").append(esc(id)).append("\">").append(SvgPlot.element(plot))
                 .append("<figcaption>").append(esc(caption)).append("</figcaption></figure>\n");
     }
 
     @Override
+    public void footer(String text) {
+        body.append("<footer class=\"caution\">").append(esc(text)).append("</footer>\n");
+    }
+
+    @Override
     public String finish() {
-        return "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>" + esc(title) + "</title>\n"
-                + "<style>\nbody{font-family:Georgia,serif;max-width:52em;margin:2em auto;padding:0 1em;line-height:1.45;color:#222}\n"
+        return "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n"
+                + "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n<title>" + esc(title) + "</title>\n"
+                + "<style>\nbody{font-family:Georgia,serif;max-width:52em;margin:2em auto;padding:0 1em;line-height:1.45;color:#222;overflow-wrap:break-word}\n"
                 + "table{border-collapse:collapse;margin:1em 0;font-size:0.92em}th,td{border-bottom:1px solid #ccc;padding:0.3em 0.7em;text-align:left}\n"
                 + "th{border-bottom:2px solid #444}.holds{color:#17702a}.fails{color:#b00020;font-weight:bold}.undecided{color:#946200}\n"
-                + ".eq{display:flex;align-items:center;justify-content:center;gap:2em;margin:0.8em 0}.tag{color:#666}\n"
-                + "figure{margin:1.5em 0;text-align:center}figure svg{max-width:100%;height:auto}figcaption{color:#555}\n"
-                + ".caution{border-left:4px solid #b00020;padding:0.3em 1em;background:#fff4f4}\n</style>\n</head>\n<body>\n"
+                + ".eq{display:flex;align-items:center;justify-content:safe center;gap:2em;margin:0.8em 0;overflow-x:auto}.tag{color:#666}\n"
+                + "figure{margin:1.5em 0;text-align:center}figure svg{display:block;margin:0 auto;width:100%;max-width:640px;height:auto}"
+                + "figcaption{color:#555}\n.scroll{overflow-x:auto;margin:1em 0}.scroll table{margin:0}\n"
+                + ".caution{margin-top:2.5em;padding-top:0.5em;border-top:1px solid #ccc;font-size:0.85em;color:#555}\n</style>\n</head>\n<body>\n"
                 + body + "</body>\n</html>\n";
     }
 

@@ -5,7 +5,7 @@ import java.io.IOException;
 import java.util.List;
 import java.util.Map;
 
-/** A standalone LaTeX article (amsmath, booktabs, graphicx); plots as PDF files beside it. */
+/** A standalone LaTeX article (amsmath, booktabs, pgfplots); plots as pgfplots pictures over CSV files beside it. */
 public final class LatexMarkup implements Markup {
     private final StringBuilder body = new StringBuilder();
     private String title = "Derivation";
@@ -56,18 +56,23 @@ public final class LatexMarkup implements Markup {
     }
 
     @Override
-    public void figure(String id, String caption, String xLabel, String yLabel, List<Plot.Series> series,
-                       Map<String, byte[]> files) throws IOException {
-        String file = id + ".pdf";
-        files.put(file, Plot.pdf(caption, xLabel, yLabel, series));
-        body.append("\\begin{figure}[h]\n\\centering\n\\includegraphics[width=0.8\\textwidth]{").append(file)
-                .append("}\n\\caption{").append(LatexPrinter.escape(caption)).append("}\n\\end{figure}\n\n");
+    public void figure(String id, String caption, Plot plot, Map<String, byte[]> files) throws IOException {
+        PgfPlot.Picture p = PgfPlot.of(id, plot);
+        files.put(p.dataFile(), p.data());
+        body.append("\\begin{figure}[htbp]\n\\centering\n").append(p.tikz()).append("\\caption{").append(LatexPrinter.escape(caption))
+                .append("}\n\\label{fig:").append(id).append("}\n\\end{figure}\n\n");
+    }
+
+    @Override
+    public void footer(String text) {
+        body.append("\\par\\vspace{2\\baselineskip}\\noindent\\rule{\\linewidth}{0.4pt}\\par\\noindent{\\footnotesize ")
+                .append(LatexPrinter.escape(text)).append("\\par}\n\n");
     }
 
     @Override
     public String finish() {
         return "\\documentclass[11pt]{article}\n\\usepackage[utf8]{inputenc}\n\\usepackage{amsmath,amssymb,booktabs,graphicx}\n"
-                + "\\usepackage[margin=2.5cm]{geometry}\n\\title{" + LatexPrinter.escape(title) + "}\n\\date{}\n"
+                + "\\usepackage[margin=2.5cm]{geometry}\n" + PgfPlot.PREAMBLE + "\\title{" + LatexPrinter.escape(title) + "}\n\\date{}\n"
                 + "\\begin{document}\n\\maketitle\n\n" + body + "\\end{document}\n";
     }
 

@@ -2,7 +2,6 @@ package dev.plumb.report;
 
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
-import java.io.IOException;
 import java.util.List;
 import java.util.Map;
 
@@ -69,11 +68,15 @@ public final class MarkdownMarkup implements Markup {
     }
 
     @Override
-    public void figure(String id, String caption, String xLabel, String yLabel, List<Plot.Series> series,
-                       Map<String, byte[]> files) throws IOException {
+    public void figure(String id, String caption, Plot plot, Map<String, byte[]> files) {
         String file = id + ".svg";
-        files.put(file, Plot.svg(caption, xLabel, yLabel, series));
+        files.put(file, SvgPlot.file(plot).getBytes(java.nio.charset.StandardCharsets.UTF_8));
         out.append("![").append(text(caption)).append("](").append(destination(file)).append(")\n\n");
+    }
+
+    @Override
+    public void footer(String text) {
+        out.append("---\n\n").append(text(text)).append("\n\n");
     }
 
     @Override

@@ -33,9 +33,13 @@ public interface Markup {
 
     void bullets(List<String> items);
 
-    /** A plot; formats that keep figures in files add them to {@code files}. */
-    void figure(String id, String caption, String xLabel, String yLabel, List<Plot.Series> series,
-                Map<String, byte[]> files) throws IOException;
+    /** A plot; formats that keep figures (or their data) in files add them to {@code files}. */
+    void figure(String id, String caption, Plot plot, Map<String, byte[]> files) throws IOException;
+
+    /** One closing line set apart from the body (the caution); formats without a footer write a paragraph. */
+    default void footer(String text) {
+        paragraph(text);
+    }
 
     String finish();
 

@@ -1,87 +1,88 @@
 package dev.plumb.report;
 
-import java.io.ByteArrayOutputStream;
-import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.util.List;
-import org.knowm.xchart.VectorGraphicsEncoder;
-import org.knowm.xchart.XYChart;
-import org.knowm.xchart.XYChartBuilder;
-import org.knowm.xchart.XYSeries;
-import org.knowm.xchart.style.Styler;
-import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
- * A profile plot (numeric solution, and the closed form where one exists) drawn with XChart and
- * written as SVG (for HTML and Markdown) or PDF (for LaTeX).
+ * A figure as data: curves of one quantity against another, each axis in a unit the file chose.
+ * Formats draw it themselves ({@link SvgPlot} for HTML and Markdown, {@link PgfPlot} for LaTeX),
+ * so text stays text and the fonts are the document's. Beneath the curves, where both a numeric
+ * solution and a closed form were sampled at the same points, a second panel shows how far apart
+ * they are ({@link #residual}).
+ *
+ * @param x      the horizontal axis (the coordinate of a profile, or the first quantity of a sweep)
+ * @param y      the vertical axis
+ * @param series the curves, values in the axes' units; at most one of each kind, all sampled at the same x
  */
-public final class Plot {
-    private Plot() {
-    }
+public record Plot(Axis x, Axis y, List<Series> series) {
 
-    /** One curve: x and y in the units named on the axes. */
-    public record Series(String name, double[] x, double[] y, boolean dashed) { }
-
-    public static byte[] svg(String title, String xLabel, String yLabel, List<Series> series) throws IOException {
-        return encode(chart(title, xLabel, yLabel, series), VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
-    }
-
-    public static byte[] pdf(String title, String xLabel, String yLabel, List<Series> series) throws IOException {
-        return reproducibleId(encode(chart(title, xLabel, yLabel, series), VectorGraphicsEncoder.VectorGraphicsFormat.PDF));
+    public Plot {
+        series = List.copyOf(series);
+        if (series.isEmpty()) throw new IllegalArgumentException("a plot needs a curve");
+        for (Series s : series) {
+            if (!java.util.Arrays.equals(s.x, series.get(0).x)) throw new IllegalArgumentException("curves sampled at different points");
+        }
     }
 
     /**
-     * The PDF with its file identifier made from its content: the encoder writes a random /ID, so two
-     * runs would differ. ISO 32000-1 (14.4) suggests an MD5 digest of the file's content, which is what
-     * replaces it here (same length, so no offset moves).
+     * What an axis shows: {@code quantity} in plumb's own notation (typeset by each format, e.g.
+     * {@code rho_c} or {@code m(R)}), in the unit written as in the file ({@code GPa}, {@code g/cm^3});
+     * a unit of "1" or null means dimensionless.
      */
-    private static byte[] reproducibleId(byte[] pdf) {
-        String text = new String(pdf, StandardCharsets.ISO_8859_1);
-        java.util.regex.Matcher m = java.util.regex.Pattern.compile("/ID \\[<([0-9A-Fa-f]+)> <([0-9A-Fa-f]+)>\\]").matcher(text);
-        if (!m.find()) return pdf;
-        String id;
-        try {
-            byte[] digest = java.security.MessageDigest.getInstance("MD5").digest(java.util.Arrays.copyOf(pdf, m.start()));
-            id = java.util.HexFormat.of().withUpperCase().formatHex(digest);
-        } catch (java.security.NoSuchAlgorithmException e) {
-            throw new IllegalStateException("MD5 is required of every Java platform", e);
+    public record Axis(String quantity, String unit) {
+        public boolean dimensionless() {
+            return unit == null || unit.isBlank() || unit.equals("1");
         }
-        if (id.length() != m.group(1).length() || id.length() != m.group(2).length()) return pdf;
-        byte[] out = pdf.clone();
-        byte[] idBytes = id.getBytes(StandardCharsets.ISO_8859_1);
-        System.arraycopy(idBytes, 0, out, m.start(1), idBytes.length);
-        System.arraycopy(idBytes, 0, out, m.start(2), idBytes.length);
-        return out;
     }
 
-    /** The SVG as text without its XML prolog, ready to inline in HTML. */
-    public static String inlineSvg(String title, String xLabel, String yLabel, List<Series> series) throws IOException {
-        String s = new String(svg(title, xLabel, yLabel, series), StandardCharsets.UTF_8);
-        int start = s.indexOf("<svg");
-        return start >= 0 ? s.substring(start) : s;
-    }
+    /** Which computation a curve comes from; each has its own colour and dash, so print in grey keeps them apart. */
+    public enum Kind {
+        NUMERIC("numeric solution"), CLOSED_FORM("closed form");
 
-    private static XYChart chart(String title, String xLabel, String yLabel, List<Series> series) {
-        // Headless: report generation must work on machines without a display.
-        System.setProperty("java.awt.headless", "true");
-        XYChart chart = new XYChartBuilder().width(640).height(400).title(title).xAxisTitle(xLabel).yAxisTitle(yLabel).build();
-        chart.getStyler().setLegendPosition(Styler.LegendPosition.InsideNE);
-        chart.getStyler().setChartBackgroundColor(java.awt.Color.WHITE);
-        chart.getStyler().setPlotGridLinesVisible(true);
-        for (Series s : series) {
-            XYSeries xy = chart.addSeries(s.name(), s.x(), s.y());
-            xy.setMarker(SeriesMarkers.NONE);
-            if (s.dashed()) {
-                xy.setLineStyle(new java.awt.BasicStroke(2f, java.awt.BasicStroke.CAP_BUTT, java.awt.BasicStroke.JOIN_MITER,
-                        10f, new float[] {6f, 4f}, 0f));
-            }
+        public final String legend;
+
+        Kind(String legend) {
+            this.legend = legend;
         }
-        return chart;
     }
 
-    private static byte[] encode(XYChart chart, VectorGraphicsEncoder.VectorGraphicsFormat format) throws IOException {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        VectorGraphicsEncoder.saveVectorGraphic(chart, out, format);
-        return out.toByteArray();
+    /** One curve; NaN marks a sample that could not be computed (the curve breaks there). */
+    public record Series(Kind kind, double[] x, double[] y) {
+        public Series {
+            if (x.length != y.length) throw new IllegalArgumentException("x and y differ in length");
+            x = x.clone();
+            y = y.clone();
+        }
+
+        @Override
+        public double[] x() {
+            return x.clone();
+        }
+
+        @Override
+        public double[] y() {
+            return y.clone();
+        }
     }
+
+    public Series series(Kind kind) {
+        return series.stream().filter(s -> s.kind() == kind).findFirst().orElse(null);
+    }
+
+    /**
+     * (numeric − closed form) / max|closed form| at each sample, when there are both curves; null
+     * otherwise. Dividing by the largest value rather than pointwise keeps the
+     * residual finite where the profile passes through zero (a pressure at a free surface).
+     */
+    public double[] residual() {
+        Series n = series(Kind.NUMERIC), c = series(Kind.CLOSED_FORM);
+        if (n == null || c == null) return null;
+        double scale = 0;
+        for (double v : c.y) if (Double.isFinite(v)) scale = Math.max(scale, Math.abs(v));
+        double[] r = new double[n.y.length];
+        for (int i = 0; i < r.length; i++) r[i] = scale > 0 ? (n.y[i] - c.y[i]) / scale : Double.NaN;
+        return r;
+    }
+
+    /** The residual panel's axis title, in words every format typesets the same way. */
+    static final String RESIDUAL_TITLE = "rel. diff.";
 }

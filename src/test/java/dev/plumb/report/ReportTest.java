@@ -44,7 +44,11 @@ class ReportTest {
         assertTrue(tex.contains("\\frac{M}{\\frac{4}{3}\\,\\pi\\,{R}^{3}}"), "the definition of rho in LaTeX");
         assertTrue(tex.contains("\\begin{document}") && tex.contains("\\end{document}"));
         String md = Files.readString(out.resolve("uniform-sphere.md"));
-        assertTrue(md.contains("## Caution"), "the caution section is there");
+        // The caution closes every format as one line set apart, not as a section of its own.
+        assertFalse(md.contains("## Caution"), "the caution is not a section");
+        assertTrue(md.strip().endsWith("licensed engineering practice, not this report."), "the caution closes the report");
+        assertTrue(html.contains("<footer class=\"caution\">Caution: "), "the page ends with the caution as its footer");
+        assertTrue(tex.contains("{\\footnotesize Caution: "), "the document ends with the caution in small type");
         assertTrue(md.contains("CODATA 2018"), "constants name their source");
     }
 
