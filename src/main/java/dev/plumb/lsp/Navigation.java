@@ -117,7 +117,7 @@ final class Navigation {
         StringBuilder hover = new StringBuilder("**" + at.text() + "** · parameter of the definition " + l.name() + "\n\n");
         if (model.symbol(l.name()).orElse(null) instanceof Symbol.Definition d && d.paramDimensions().size() == d.params().size()) {
             Dimension dim = d.paramDimensions().get(d.params().indexOf(at.text()));
-            hover.append(unitLines(UnitCatalog.siName(dim), dim));
+            hover.append(unitLines("`" + UnitCatalog.siName(dim) + "`", dim));
         }
         hover.append(declaredOn(declared));
         return Optional.of(new Target(at.text(), declared, hover.toString()));
@@ -147,17 +147,17 @@ final class Navigation {
         return "built-in constant";
     }
 
-    /** The unit as the file wrote it where it did, else the SI name of the dimension, saying where it came from. */
+    /** The unit (as Markdown code) as the file wrote it where it did, else the SI name of the dimension, saying where it came from. */
     private String unit(Symbol s) {
         for (Stmt st : model.program().statements()) {
             Stmt.UnitText written = null;
             if (st instanceof Stmt.Param p && p.nameSpan().equals(s.span())) written = p.unit();
             else if (st instanceof Stmt.Coord c && c.nameSpan().equals(s.span())) written = c.unit();
             else if (st instanceof Stmt.Unknown u && u.nameSpan().equals(s.span())) written = u.unit();
-            if (written != null) return written.text();
+            if (written != null) return "`" + written.text() + "`";
         }
-        String si = UnitCatalog.siName(s.dimension());
-        if (s instanceof Symbol.Builtin b) return b.constant().unit().text();
+        String si = "`" + UnitCatalog.siName(s.dimension()) + "`";
+        if (s instanceof Symbol.Builtin b) return "`" + b.constant().unit().text() + "`";
         if (s instanceof Symbol.Definition) return si + " (from its definition)";
         if (s instanceof Symbol.Profile p && p.unitInferred() || s instanceof Symbol.UnknownConstant u && u.unitInferred()) {
             return si + " (inferred)";
@@ -166,7 +166,7 @@ final class Navigation {
     }
 
     private static String unitLines(String unit, Dimension d) {
-        return "unit: `" + unit + "`  \ndimension: " + dimension(d) + " (SI base units: `" + d + "`)  \n";
+        return "unit: " + unit + "  \ndimension: " + dimension(d) + " (SI base units: `" + d + "`)  \n";
     }
 
     /** The dimension in the usual symbols: a pressure is M L^-1 T^-2. */
@@ -186,6 +186,17 @@ final class Navigation {
     }
 
     private String declaredOn(Span span) {
-        return "declared on line " + span.line() + ": `" + source.line(span.line()).strip() + "`\n";
+        return "declared on line " + span.line() + ": `" + withoutComment(source.line(span.line())) + "`\n";
+    }
+
+    /** The statement of a line, without its comment ({@code #} outside a string). */
+    private static String withoutComment(String line) {
+        boolean inString = false;
+        for (int i = 0; i < line.length(); i++) {
+            char c = line.charAt(i);
+            if (c == '"') inString = !inString;
+            if (c == '#' && !inString) return line.substring(0, i).strip();
+        }
+        return line.strip();
     }
 }
