@@ -50,6 +50,6 @@ public final class LspCommand implements Callable<Integer> {
             root.setLevel(Level.OFF);
         }
         Analyzer analyzer = new Analyzer(new Analyzer.Options(symbolicTimeout, false, Long.MAX_VALUE, 0, debug));
-        return PlumbLanguageServer.serve(analyzer, System.in, protocol);
+        return PlumbLanguageServer.serve(analyzer, System.in, protocol, debug);
     }
 }

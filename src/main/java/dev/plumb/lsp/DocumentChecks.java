@@ -57,17 +57,20 @@ final class DocumentChecks implements AutoCloseable {
     private final Analyzer analyzer;
     private final Consumer<PublishDiagnosticsParams> publish;
     private final long settleMillis;
+    private final boolean debug;
     private final ExecutorService fast = Executors.newSingleThreadExecutor(named("plumb-lsp-units"));
     private final ScheduledExecutorService slow = Executors.newSingleThreadScheduledExecutor(named("plumb-lsp-checks"));
 
     /**
      * @param publish       sends diagnostics to the editor (called from the two checking threads)
      * @param settleMillis  how long a text must stay the latest before the slow stages start on it
+     * @param debug         print the stack trace of a defect that stops a check to standard error
      */
-    DocumentChecks(Analyzer analyzer, Consumer<PublishDiagnosticsParams> publish, long settleMillis) {
+    DocumentChecks(Analyzer analyzer, Consumer<PublishDiagnosticsParams> publish, long settleMillis, boolean debug) {
         this.analyzer = analyzer;
         this.publish = publish;
         this.settleMillis = settleMillis;
+        this.debug = debug;
     }
 
     private static ThreadFactory named(String name) {
@@ -127,6 +130,7 @@ final class DocumentChecks implements AutoCloseable {
             rev.fast = analyzer.diagnose(rev.source());
         } catch (RuntimeException | StackOverflowError e) {
             // A defect in the checker must not take the server down: the document goes unchecked.
+            if (debug) e.printStackTrace();
             return;
         }
         SourcePositions positions = new SourcePositions(rev.text);
@@ -145,9 +149,11 @@ final class DocumentChecks implements AutoCloseable {
         Analysis full;
         try {
             full = analyzer.cancelledWhen(() -> !isLatest(d, rev)).analyze(rev.source());
-        } catch (Analyzer.Cancelled | StackOverflowError e) {
+        } catch (Analyzer.Cancelled superseded) {
             return;
-        } catch (RuntimeException e) {
+        } catch (RuntimeException | StackOverflowError e) {
+            // Each stage guards itself; this is a defect outside them. The fast stages' messages stay shown.
+            if (debug) e.printStackTrace();
             return;
         }
         SourcePositions positions = new SourcePositions(rev.text);

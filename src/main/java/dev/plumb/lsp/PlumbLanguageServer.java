@@ -39,21 +39,21 @@ public final class PlumbLanguageServer implements LanguageServer, LanguageClient
     private volatile LanguageClient client;
     private volatile boolean shutdown;
 
-    public PlumbLanguageServer(Analyzer analyzer) {
+    public PlumbLanguageServer(Analyzer analyzer, boolean debug) {
         this.checks = new DocumentChecks(analyzer, p -> {
             LanguageClient c = client;
             if (c != null) c.publishDiagnostics(p);
-        }, SETTLE_MILLIS);
+        }, SETTLE_MILLIS, debug);
         this.documents = new PlumbTextDocuments(checks);
     }
 
     /**
      * Serves the protocol on {@code in} and {@code out} until the editor sends {@code exit} or closes
      * the input, and returns the exit status the protocol asks for: 0 after a {@code shutdown}
-     * request, 1 without one.
+     * request, 1 without one. With {@code debug}, stack traces of defects go to standard error.
      */
-    public static int serve(Analyzer analyzer, InputStream in, OutputStream out) {
-        PlumbLanguageServer server = new PlumbLanguageServer(analyzer);
+    public static int serve(Analyzer analyzer, InputStream in, OutputStream out, boolean debug) {
+        PlumbLanguageServer server = new PlumbLanguageServer(analyzer, debug);
         Launcher<LanguageClient> launcher = LSPLauncher.createServerLauncher(server, in, out);
         server.connect(launcher.getRemoteProxy());
         Future<Void> listening = launcher.startListening();

@@ -75,7 +75,7 @@ class LanguageServerTest {
         PipedInputStream clientIn = new PipedInputStream(1 << 16);
         PipedOutputStream toClient = new PipedOutputStream(clientIn);
         Analyzer analyzer = new Analyzer(Analyzer.Options.defaults());
-        serverExit = CompletableFuture.supplyAsync(() -> PlumbLanguageServer.serve(analyzer, serverIn, toClient));
+        serverExit = CompletableFuture.supplyAsync(() -> PlumbLanguageServer.serve(analyzer, serverIn, toClient, false));
         client = LSPLauncher.createClientLauncher(new Editor(), clientIn, toServer);
         client.startListening();
         server = client.getRemoteProxy();
