@@ -114,16 +114,18 @@ public final class PlumbLanguageServer implements LanguageServer, LanguageClient
 
     @Override
     public WorkspaceService getWorkspaceService() {
-        return new WorkspaceService() {
-            @Override
-            public void didChangeConfiguration(DidChangeConfigurationParams params) {
-                // plumb has no settings an editor can change
-            }
-
-            @Override
-            public void didChangeWatchedFiles(DidChangeWatchedFilesParams params) {
-                // open documents are checked from the editor's text, not from the disk
-            }
-        };
+        return workspace;
     }
+
+    private final WorkspaceService workspace = new WorkspaceService() {
+        @Override
+        public void didChangeConfiguration(DidChangeConfigurationParams params) {
+            // plumb has no settings an editor can change
+        }
+
+        @Override
+        public void didChangeWatchedFiles(DidChangeWatchedFilesParams params) {
+            // open documents are checked from the editor's text, not from the disk
+        }
+    };
 }

@@ -85,13 +85,15 @@ public final class SaveWatcher implements AutoCloseable {
         return changed;
     }
 
-    /** An editor that deletes and re-creates the file may not have written the new one yet. */
+    /**
+     * An editor that deletes and re-creates the file may not have written the new one yet; a file
+     * that stays missing is reported all the same (its check says it is missing).
+     */
     private void awaitReappearance(Set<Path> changed) throws InterruptedException {
         long start = System.nanoTime();
-        Set<Path> scratch = new LinkedHashSet<>();
         while (changed.stream().anyMatch(p -> !Files.exists(p)) && System.nanoTime() - start < reappearNanos) {
             WatchKey key = service.poll(debounceNanos, TimeUnit.NANOSECONDS);
-            if (key != null) collect(key, scratch);
+            if (key != null) collect(key, changed);
         }
     }
 
