@@ -24,7 +24,12 @@ final class AnalysisOptions {
     boolean debug;
 
     /** When the run started, for {@link #timeout}. */
-    final long started = System.nanoTime();
+    long started = System.nanoTime();
+
+    /** Starts the clock of {@link #timeout} again, for each check of a watch. */
+    void restartClock() {
+        started = System.nanoTime();
+    }
 
     long deadline() {
         return timeout == null ? Long.MAX_VALUE : started + (long) (timeout * 1e9);

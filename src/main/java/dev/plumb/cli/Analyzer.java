@@ -82,9 +82,49 @@ public final class Analyzer {
     private final Options options;
     /** The file being analysed, for the listener. */
     private volatile String current = "";
+    private final java.util.function.BooleanSupplier cancelled;
 
     public Analyzer(Options options) {
+        this(options, () -> false);
+    }
+
+    private Analyzer(Options options, java.util.function.BooleanSupplier cancelled) {
         this.options = options;
+        this.cancelled = cancelled;
+    }
+
+    /**
+     * Thrown out of {@link #analyze(SourceFile)} between two stages when the run was cancelled (its
+     * thread interrupted, or the condition of {@link #cancelledWhen} true): the partial results are
+     * dropped whole, so no caller can show a half-finished analysis as if it were the file's.
+     */
+    public static final class Cancelled extends java.util.concurrent.CancellationException {
+        Cancelled() {
+            super("the analysis was cancelled");
+        }
+    }
+
+    /**
+     * The same analyzer, whose runs stop at the next stage boundary once {@code cancelled} says so or
+     * their thread is interrupted (an interrupt also stops a running computer-algebra call).
+     */
+    public Analyzer cancelledWhen(java.util.function.BooleanSupplier cancelled) {
+        return new Analyzer(options, cancelled);
+    }
+
+    /**
+     * Only the fast stages, for feedback while typing: parse and check units. The analysis holds the
+     * model, the syntax and unit diagnostics and the unit checks; no derivation, case or scaling.
+     */
+    public Analysis diagnose(SourceFile source) {
+        Diagnostics diagnostics = new Diagnostics();
+        Program program = Parser.parse(source, diagnostics);
+        Model model = Checker.check(program, diagnostics);
+        return new Analysis(source, model, model.diagnostics(), model.unitChecks(), List.of(), List.of(), List.of(), List.of());
+    }
+
+    private boolean isCancelled() {
+        return Thread.currentThread().isInterrupted() || cancelled.getAsBoolean();
     }
 
     public Analysis analyze(Path path) {
@@ -203,6 +243,7 @@ public final class Analyzer {
      * and the note says which stage stopped and why (no stack trace reaches the user).
      */
     private <T> T guarded(List<String> skipped, String stage, List<String> notes, Supplier<T> work) {
+        if (isCancelled()) throw new Cancelled();
         if (options.expired()) {
             if (!skipped.contains(stage)) skipped.add(stage);
             notes.add("the " + stage + " stage was not reached within the --timeout of "
@@ -213,6 +254,8 @@ public final class Analyzer {
         try {
             return work.get();
         } catch (RuntimeException | StackOverflowError | OutOfMemoryError e) {
+            // A stage that stopped because the run was cancelled has no defect to report.
+            if (e instanceof Cancelled || isCancelled()) throw new Cancelled();
             if (options.debug()) e.printStackTrace();
             notes.add("the " + stage + " stage stopped on this file (" + e.getClass().getSimpleName()
                     + (e.getMessage() == null ? "" : ": " + e.getMessage()) + "); its checks are undecided. Please report this.");

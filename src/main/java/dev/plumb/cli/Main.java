@@ -7,7 +7,7 @@ import picocli.CommandLine.Command;
 /** The {@code plumb} command: check derivations, write reports, convert units. */
 @Command(name = "plumb", mixinStandardHelpOptions = true, versionProvider = Version.class,
         description = "Unit-checked symbolic-to-numeric derivation assistant for hydrostatic equilibrium.",
-        subcommands = {CheckCommand.class, ReportCommand.class, UnitsCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {CheckCommand.class, ReportCommand.class, UnitsCommand.class, LspCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
 
     @CommandLine.Spec

@@ -111,8 +111,8 @@ final class ClosedForms {
         String p = unknown.get(0);
         ISymbol head = t.head(p);
         ISymbol x = table.coordinate;
-        ISymbol y = F.Dummy("plumby");
-        ISymbol yp = F.Dummy("plumbyp");
+        ISymbol y = Symja.symbol("plumby");
+        ISymbol yp = Symja.symbol("plumbyp");
         IExpr replaced = symja.eval(F.ReplaceAll(eq, F.list(
                 F.Rule(F.unaryAST1(F.unaryAST1(F.Derivative(F.C1), head), x), yp), F.Rule(F.unaryAST1(head, x), y))));
         if (replaced.has(head, true)) return false; // a higher derivative, or the profile at another point

@@ -54,7 +54,7 @@ final class SymbolTable {
                 builtin(s.name());
                 continue;
             }
-            ISymbol sym = F.Dummy(String.format("pb%03d", user++));
+            ISymbol sym = Symja.symbol(String.format("pb%03d", user++));
             toSymja.put(s.name(), sym);
             toPlumb.put(sym, s.name());
         }
@@ -66,7 +66,7 @@ final class SymbolTable {
             for (var p : r.powers().entrySet()) basis = F.Times(basis, F.Power(builtin(p.getKey()), F.ZZ(p.getValue())));
             inBasis.put(toSymja.get(r.derived()), basis);
         }
-        coordinate = model.coordinate().map(c -> toSymja.get(c.name())).orElse(F.Dummy("pzcoord"));
+        coordinate = model.coordinate().map(c -> toSymja.get(c.name())).orElse(Symja.symbol("pzcoord"));
         if (model.coordinate().isEmpty()) toPlumb.put(coordinate, "x");
     }
 
@@ -79,7 +79,7 @@ final class SymbolTable {
         ISymbol known = toSymja.get(name);
         if (known != null) return known;
         int index = new ArrayList<>(Constants.all().keySet()).indexOf(name);
-        ISymbol sym = F.Dummy(String.format("pa%03d", index));
+        ISymbol sym = Symja.symbol(String.format("pa%03d", index));
         toSymja.put(name, sym);
         toPlumb.put(sym, name);
         builtins.add(name);

@@ -116,6 +116,34 @@ final class Symja {
     }
 
     /**
+     * The private symbol named {@code name}, the same object on every call. Symja's symbols are
+     * equal only to themselves ({@code F.Dummy} makes a new one each time), so the trees of two
+     * analyses of the same text are equal, and {@link #eval} can answer the second from memory,
+     * only when both are built from the same symbols.
+     */
+    static ISymbol symbol(String name) {
+        return SYMBOLS.computeIfAbsent(name, F::Dummy);
+    }
+
+    private static final java.util.Map<String, ISymbol> SYMBOLS = new java.util.concurrent.ConcurrentHashMap<>();
+
+    /**
+     * Results of earlier evaluations in this process, by the tree evaluated: an evaluation is a
+     * function of its tree alone (the engine's limits are fixed, assumptions are part of the tree,
+     * no symbol is ever assigned), so a warm process (a watch, the language server) re-checks an
+     * edited file at the cost of what changed. Only results are kept, never a failure or a timeout,
+     * which may depend on the machine; the oldest entries go past {@link #REMEMBERED_LIMIT}.
+     */
+    private static final java.util.Map<IExpr, IExpr> REMEMBERED = java.util.Collections.synchronizedMap(
+            new java.util.LinkedHashMap<>(256, 0.75f, true) {
+                @Override
+                protected boolean removeEldestEntry(java.util.Map.Entry<IExpr, IExpr> eldest) {
+                    return size() > REMEMBERED_LIMIT;
+                }
+            });
+    private static final int REMEMBERED_LIMIT = 20_000;
+
+    /**
      * Symja's own bounds on one evaluation, the same on every machine: deep enough for the simplification
      * of a layered atmosphere's closed form (the defaults, 512 and 1000, are not), and far below what the
      * worker's stack holds.
@@ -136,6 +164,14 @@ final class Symja {
      * arithmetic that never checks) is abandoned and the session starts a fresh one.
      */
     IExpr eval(IExpr e, double seconds) {
+        IExpr known = REMEMBERED.get(e);
+        if (known != null) return known;
+        IExpr result = evaluate(e, seconds);
+        REMEMBERED.put(e, result);
+        return result;
+    }
+
+    private IExpr evaluate(IExpr e, double seconds) {
         EvalEngine engine = evaluator.getEvalEngine();
         engine.setStopRequested(false);
         Worker w = worker();
