@@ -223,8 +223,9 @@ public final class NumericEngine {
             closed = null;
             source = null;
         }
-        Double rel = closed == null ? null : closed != 0 ? Math.abs(numeric - closed) / Math.abs(closed)
-                : numeric == 0 ? 0.0 : null;
+        // Boxed on every branch: a mixed double/Double conditional unboxes its null (a closed form of 0, numeric not 0).
+        Double rel = closed == null ? null : closed != 0 ? Double.valueOf(Math.abs(numeric - closed) / Math.abs(closed))
+                : numeric == 0 ? Double.valueOf(0.0) : null;
         String unit = UnitCatalog.siName(model.dimensionOf(w.expr()));
         double factor = 1.0;
         if (w.shownUnit() != null) {

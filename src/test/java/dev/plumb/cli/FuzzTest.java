@@ -64,6 +64,8 @@ class FuzzTest {
     @ValueSource(strings = {
         // The algebra system's overflow reached the user as the name of a Java exception class.
         "param a > 0\nstep c0: tanh(7.3e22) = a\n",
+        // A claimed value of 0 where the numeric value is not: the relative difference unboxed a null.
+        "param a = 2\nclaim z: a = 0\n",
     })
     void foundByFuzzing(String text) {
         try (Fuzzing fuzzing = new Fuzzing(SYMBOLIC_TIMEOUT, GUARD_SECONDS)) {
