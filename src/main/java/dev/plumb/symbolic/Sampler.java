@@ -152,7 +152,22 @@ final class Sampler {
             gaveUp = f.getMessage();
             return null;
         }
+        if (n instanceof INum num && outOfRange(num.apfloatValue())) {
+            gaveUp = "a value beyond 1e" + MAX_EXPONENT + " in size (or below 1e-" + MAX_EXPONENT + ") at a sample point";
+            return null;
+        }
         return decimal(n);
+    }
+
+    /**
+     * The largest decimal exponent a sample value may have. Far past any physical quantity, and it keeps
+     * a value such as exp(x)^1e6 from being written out digit by digit (a million digits, read back in
+     * time quadratic in their number).
+     */
+    static final int MAX_EXPONENT = 10_000;
+
+    private static boolean outOfRange(Apfloat a) {
+        return a.signum() != 0 && Math.abs(a.scale()) > MAX_EXPONENT;
     }
 
     private String gaveUp;
@@ -167,6 +182,7 @@ final class Sampler {
         if (n instanceof IFraction q) return new BigDecimal(q.toBigNumerator()).divide(new BigDecimal(q.toBigDenominator()), MC);
         if (n instanceof INum num) {
             Apfloat a = num.apfloatValue();
+            if (outOfRange(a)) return null;
             try {
                 return new BigDecimal(a.toString(true));
             } catch (NumberFormatException ex) {

@@ -204,10 +204,7 @@ final class Symja {
                 if (stopped) throw new Failure(timedOutMessage(seconds), true);
                 // Not only StackOverflowError: Symja's own assertions (under -ea) throw Errors from inside an
                 // evaluation, and the numeric side can still answer.
-                Throwable cause = ex.getCause() == null ? ex : ex.getCause();
-                String why = cause.getClass().getSimpleName().equals("BigIntegerLimitExceeded")
-                        ? "a number past " + Config.MAX_BIT_LENGTH + " bits" : cause.getClass().getSimpleName();
-                throw new Failure("the computer algebra system gave up (" + why + ")", false);
+                throw new Failure("the computer algebra system gave up (" + reason(ex.getCause() == null ? ex : ex.getCause()) + ")", false);
             } catch (InterruptedException ex) {
                 Thread.currentThread().interrupt();
                 engine.stopRequest();
@@ -215,6 +212,16 @@ final class Symja {
                 throw new Failure("the symbolic computation was cancelled", true);
             }
         }
+    }
+
+    /** Why an evaluation threw, in words: the name of a Java class tells the user nothing. */
+    static String reason(Throwable cause) {
+        if (cause.getClass().getSimpleName().equals("BigIntegerLimitExceeded")) return "a number past " + Config.MAX_BIT_LENGTH + " bits";
+        if (cause.getClass().getSimpleName().equals("OverflowException")) return "a number beyond the range of its arithmetic";
+        if (cause instanceof ArithmeticException) return "an arithmetic error";
+        if (cause instanceof StackOverflowError) return "its nesting limit";
+        if (cause instanceof OutOfMemoryError) return "its memory limit";
+        return "a failure inside it";
     }
 
     private static String timedOutMessage(double seconds) {
