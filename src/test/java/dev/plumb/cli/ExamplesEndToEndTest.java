@@ -248,6 +248,15 @@ class ExamplesEndToEndTest {
         assertEquals("101325 + E*I*D", ivo.closedForm("P(D)"));
     }
 
+    @Test
+    void inventedInteriorsAndASequenceHold() {
+        run("tessaly-rocky-planet-two-ways", 0).holds("claim", "uniform_centre", "layered_total");
+        Doc orvanth = run("orvanth-gas-giant-polytrope", 0);
+        orvanth.holds("expect", "concentration", "central_coefficient");
+        orvanth.holds("scaling", "central");
+        run("pellucid-dwarfs-sweep", 0).holds("expect", "smallest", "largest");
+    }
+
     // ---- examples that fail, as their comments say --------------------------------------------
 
     @Test
@@ -257,6 +266,26 @@ class ExamplesEndToEndTest {
         d.fails("claim", "negated", "-1");
         d.fails("claim", "three_halves", "3/2");
         d.fails("claim", "eight_pi_thirds", "8*pi/3");
+    }
+
+    @Test
+    void aHandDerivationFailsExactlyOnItsThreeMistakes() {
+        Doc d = run("quillon-hand-derivation-mistakes", 1);
+        d.fails("step", "mass_wrong", null);
+        assertTrue(((String) d.check("step", "mass_wrong").get("message")).contains("relation 'mass' is not met"));
+        d.fails("step", "gradient_sign", "-1");
+        d.fails("claim", "central_halved", "1/2");
+        d.holds("step", "mass_right", "gradient");
+        d.holds("claim", "central");
+    }
+
+    @Test
+    void aScalingCheckBeforeASimulationCatchesTheWrongDensityLaw() {
+        Doc d = run("hollin-scaling-before-simulation", 1);
+        d.holds("scaling", "pressure", "temperature");
+        d.fails("scaling", "wrong_density", null);
+        assertTrue(((String) d.check("scaling", "wrong_density").get("message")).contains("exponent of R is -3.000000, claimed -2"),
+                () -> d.check("scaling", "wrong_density").toString());
     }
 
     @Test
