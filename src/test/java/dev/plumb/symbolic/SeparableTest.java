@@ -46,6 +46,7 @@ class SeparableTest {
         SymbolicResult r = Fixtures.analyze(Fixtures.file("derivations/isothermal-atmosphere.plumb"));
         assertEquals(Status.HOLDS, Fixtures.check(r, "profile").status(), Fixtures.check(r, "profile").message());
         assertEquals(Status.HOLDS, Fixtures.check(r, "one_height").status(), Fixtures.check(r, "one_height").message());
-        assertEquals("P0/exp(1)", Fixtures.derived(r, "P(H)").printed());
+        // e is a built-in of the language, so Euler's number prints as e.
+        assertEquals("P0/e", Fixtures.derived(r, "P(H)").printed());
     }
 }
