@@ -5,7 +5,6 @@ import dev.plumb.lang.ExprPrinter;
 import dev.plumb.lang.Span;
 import dev.plumb.model.CaseValues;
 import dev.plumb.model.ConstantEvaluator;
-import dev.plumb.model.FileUnits;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import dev.plumb.numeric.CaseResult;
@@ -125,7 +124,6 @@ final class CaseAnalysis {
         if (coord.isEmpty() || model.profiles().isEmpty()) return List.of();
         Map<String, Double> params = values == null ? Map.of() : values.values();
         List<Analysis.ProfileSample> out = new ArrayList<>();
-        FileUnits units = FileUnits.of(model);
         try {
             Solution s = NumericEngine.solve(model, params, SWEEP_OPTIONS);
             double a = s.evaluate(coord.get().from());
@@ -146,20 +144,13 @@ final class CaseAnalysis {
                         c[i] = new ConstantEvaluator(nm -> model.symbols().get(nm), at).evaluate(form);
                     }
                 }
-                // Plotted in the file's units: the coordinate's declared unit and the profile's own.
-                dev.plumb.units.Unit xu = units.coordinate(), yu = units.forSymbol(p.name());
-                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), xu.text(), yu.text(), scaled(x, xu), scaled(y, yu),
-                        c == null ? null : scaled(c, yu)));
+                // Samples stay in SI: the plots and the CSV put them in the file's units themselves.
+                out.add(new Analysis.ProfileSample(p.name(), coord.get().name(), dev.plumb.units.UnitCatalog.siName(coord.get().dimension()),
+                        dev.plumb.units.UnitCatalog.siName(p.dimension()), x, y, c));
             }
         } catch (SolveException | ConstantEvaluator.NotConstant ex) {
             notes.add(casePrefix(label) + "profiles not sampled for plotting: " + ex.getMessage());
         }
-        return out;
-    }
-
-    private static double[] scaled(double[] si, dev.plumb.units.Unit unit) {
-        double[] out = new double[si.length];
-        for (int i = 0; i < si.length; i++) out[i] = si[i] / unit.factor();
         return out;
     }
 

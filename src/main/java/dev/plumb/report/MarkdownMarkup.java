@@ -76,7 +76,7 @@ public final class MarkdownMarkup implements Markup {
 
     @Override
     public void footer(String text) {
-        out.append("---\n\n").append(text(text)).append("\n\n");
+        out.append(text(text)).append("\n\n");
     }
 
     @Override
