@@ -93,7 +93,9 @@ public final class Lexer {
 
     private void number(int start) {
         while (isDigit(peek())) pos++;
-        if (peek() == '.' && isDigit(peekAt(1)) || peek() == '.' && !isIdentStart(peekAt(1))) {
+        // One decimal point: a number that began with '.' (".5") has had it already, so ".512.5" is two numbers.
+        boolean pointSeen = src.charAt(start) == '.';
+        if (!pointSeen && (peek() == '.' && isDigit(peekAt(1)) || peek() == '.' && !isIdentStart(peekAt(1)))) {
             pos++;
             while (isDigit(peek())) pos++;
         }

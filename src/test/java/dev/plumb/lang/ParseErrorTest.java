@@ -145,4 +145,12 @@ class ParseErrorTest {
         assertInstanceOf(Stmt.Boundary.class, statements.get(statements.size() - 1));
         assertEquals(8, statements.get(statements.size() - 1).span().line());
     }
+
+    @Test
+    void aSecondDecimalPointStartsAnotherNumberInsteadOfFailingTheLexer() {
+        // Found by the fuzzing test: ".512.5" made the lexer hand "multiple points" to Double.parseDouble.
+        Diagnostics d = new Diagnostics();
+        Parser.parse(new SourceFile("t.plumb", "param x > 0\nexpect e: x at .512.5 = 1 within 1%\n"), d);
+        assertTrue(d.hasErrors(), "a located syntax error, not an exception");
+    }
 }
