@@ -134,7 +134,7 @@ class BadInputCatalogueTest {
         t.add(text("a value shown in a unit of another kind", SPHERE + "show P(0) in [K]\n", 2, 11, 14, "the units differ"));
         // Two errors: 'x' is no profile, and 'r' is no coordinate (the file declares none).
         t.add(text("a derivative of a parameter, no coordinate", "param x > 0\nclaim c: x'(r) = 1\n", 2, 2, 10,
-                "only unknown profiles can be differentiated").errors(2));
+                "can be differentiated; 'x' is not a function of the coordinate").errors(2));
 
         // Text as files come: "claim c: M = " is 13 characters, so the undefined N is column 14 on line 2.
         String undefinedN = "param M [kg] > 0\nclaim c: M = N\n";

@@ -141,7 +141,9 @@ class FormulationTest {
         NumericResult r = NumericEngine.run(m, Map.of(), NumericOptions.defaults());
         // Analytic: P(8 km) = 101325 Pa / e = 37275.38 Pa.
         String absolute = r.checks().get(0).message(), ratio = r.checks().get(1).message();
-        assertTrue(absolute.startsWith("P(8 [km]): numeric 37275.3") && absolute.contains("(allowed 5.00000 Pa)"), absolute);
+        // The message speaks the file's unit (hPa) with SI beside it, and keeps the tolerance as written.
+        assertTrue(absolute.startsWith("P(8 [km]): numeric 372.753") && absolute.contains("(37275.3")
+                && absolute.contains("(allowed 5.00000 Pa"), absolute);
         assertTrue(ratio.contains("(allowed 0.000100000 absolute)") && !ratio.contains(" 1,"), ratio);
         assertEquals(Status.HOLDS, r.checks().get(1).status(), ratio);
         CaseResult c = r.cases().get(0);
