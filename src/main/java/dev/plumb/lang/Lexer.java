@@ -132,15 +132,26 @@ public final class Lexer {
             String where = lineEnd ? "before the end of the line" : "before the '" + src.charAt(close) + "' at column " + (close - lineStart + 1);
             diagnostics.error(Span.at(line, start - lineStart + 1, Math.max(1, stop - start)),
                     "unit not closed: '[' at column " + (start - lineStart + 1) + " needs a ']' " + where);
-            if (stop > pos) {
-                tokens.add(new Token(TokenType.UNIT, src.substring(pos, stop), new Span(line, start - lineStart + 1, line, stop - lineStart + 1)));
+            // Keep as the unit only what can be part of one ("kg" of "[kg > 0"); the rest is read as
+            // the statement's own text, so "> 0" is still the constraint and no follow-on error comes.
+            int cut = pos;
+            while (cut < stop && isUnitChar(src.charAt(cut))) cut++;
+            int end = cut;
+            while (end > pos && Character.isWhitespace(src.charAt(end - 1))) end--;
+            if (end > pos) {
+                tokens.add(new Token(TokenType.UNIT, src.substring(pos, end), new Span(line, start - lineStart + 1, line, end - lineStart + 1)));
             }
-            pos = close;
+            pos = cut < stop ? cut : close;
             return;
         }
         tokens.add(new Token(TokenType.UNIT, src.substring(pos, close),
                 new Span(line, start - lineStart + 1, line, close + 1 - lineStart + 1)));
         pos = close + 1;
+    }
+
+    /** A character a unit can hold: letters, digits, spaces, superscripts and the unit operators. */
+    private static boolean isUnitChar(char c) {
+        return Character.isLetterOrDigit(c) || c == ' ' || c == '\t' || c == '_' || c == '.' || "*·⋅×/^-−+()⁻⁺⁰¹²³⁴⁵⁶⁷⁸⁹".indexOf(c) >= 0;
     }
 
     private static boolean endsOpenUnit(char c) {

@@ -250,7 +250,9 @@ class ExamplesEndToEndTest {
 
     @Test
     void inventedInteriorsAndASequenceHold() {
-        run("tessaly-rocky-planet-two-ways", 0).holds("claim", "uniform_centre", "layered_total");
+        Doc tessaly = run("tessaly-rocky-planet-three-ways", 0);
+        tessaly.holds("claim", "uniform_centre", "layered_total", "layered_centre");
+        tessaly.holds("expect", "poly_over_uniform");
         Doc orvanth = run("orvanth-gas-giant-polytrope", 0);
         orvanth.holds("expect", "concentration", "central_coefficient");
         orvanth.holds("scaling", "central");
