@@ -178,7 +178,6 @@ public final class Analyzer {
         current = file;
         if (!diagnostics.hasInputErrors() && model.diagnostics().isEmpty()) options.listener().unitsChecked(model, model.unitChecks());
         if (!diagnostics.hasInputErrors()) {
-            SymbolicEngine.prepare(model);
             Map<String, Expr> closedForms = new LinkedHashMap<>();
             SymbolicResult symbolic = guarded(skipped, "symbolic", notes, () -> SymbolicEngine.analyze(model,
                     new SymbolicOptions(options.symbolicSeconds())));

@@ -179,9 +179,51 @@ final class FirstOrder {
     }
 
     private IExpr integrate(IExpr g, ISymbol v) {
+        IExpr powers = powerSum(g, v);
+        if (powers != null) return powers;
         Symja.loadIntegrationRules();
         IExpr result = symja.eval(F.Integrate(g, v));
         if (result.has(S.Integrate, true)) throw new Symja.Failure("Symja found no antiderivative", false);
         return result;
+    }
+
+    /**
+     * The antiderivative of a sum of powers {@code c v^k} (c free of v, k rational and not -1), term by
+     * term, or null for any other integrand. Most hydrostatic integrands are of this kind (the uniform
+     * sphere's is a polynomial), and they need none of the algebra system's integration rules, whose
+     * loading costs more than the rest of such a file's symbolic work. The result is accepted only when
+     * its derivative expands to the integrand.
+     */
+    private IExpr powerSum(IExpr g, ISymbol v) {
+        IExpr expanded = symja.eval(F.Expand(g));
+        List<IExpr> terms = new ArrayList<>();
+        if (expanded.isPlus()) {
+            for (IExpr term : (IAST) expanded) terms.add(term);
+        } else {
+            terms.add(expanded);
+        }
+        List<IExpr> integrated = new ArrayList<>();
+        for (IExpr term : terms) {
+            IExpr coefficient = F.C1;
+            IExpr k = F.C0;
+            List<IExpr> factors = new ArrayList<>();
+            if (term.isTimes()) {
+                for (IExpr f : (IAST) term) factors.add(f);
+            } else {
+                factors.add(term);
+            }
+            for (IExpr f : factors) {
+                if (!f.has(v, true)) coefficient = F.Times(coefficient, f);
+                else if (f.equals(v)) k = F.Plus(k, F.C1);
+                else if (f.isPower() && f.base().equals(v) && f.exponent().isRational()) k = F.Plus(k, f.exponent());
+                else return null;
+            }
+            IExpr raised = symja.eval(F.Plus(k, F.C1));
+            if (!raised.isRational() || raised.isZero()) return null;
+            integrated.add(F.Times(coefficient, F.Power(v, raised), F.Power(raised, F.CN1)));
+        }
+        IExpr result = symja.eval(F.Plus(integrated.toArray(IExpr[]::new)));
+        IExpr check = symja.eval(F.Expand(F.Subtract(F.D(result, v), expanded)));
+        return check.isZero() ? result : null;
     }
 }

@@ -27,16 +27,6 @@ public final class SymbolicEngine {
     private SymbolicEngine() {
     }
 
-    /** Starts Symja on a background thread so that the first real call does not pay the warm-up. Idempotent. */
-    /**
-     * Prepares the algebra system for a model while the run does other work: a model with a derivative
-     * in its relations will seek antiderivatives, so Symja's integration rules start loading now.
-     */
-    public static void prepare(Model model) {
-        boolean integrates = model.relations().stream().anyMatch(r -> dev.plumb.model.References.hasDerivative(r.equation()));
-        if (integrates) Symja.preloadIntegrationRules();
-    }
-
     public static SymbolicResult analyze(Model model, SymbolicOptions options) {
         Symja symja = new Symja(options.timeoutSeconds());
         try {

@@ -27,7 +27,6 @@ final class Symja {
         }
     }
 
-    private static volatile Thread warmer;
 
     static {
         configure();
@@ -66,27 +65,10 @@ final class Symja {
     private static boolean integrationRulesLoaded;
 
     /**
-     * Starts loading Symja's integration rules on a background thread, for a file that will integrate:
-     * the loading then overlaps the work before the first antiderivative is sought.
-     */
-    static synchronized void preloadIntegrationRules() {
-        if (warmer != null || integrationRulesLoaded) return;
-        warmer = new Thread(() -> {
-            try {
-                loadIntegrationRules();
-            } catch (RuntimeException | LinkageError ignored) {
-                // A failed preload only costs time later. When the run ends before the preload does (the
-                // JVM shutting down), Symja's static set-up fails with an Error that must not reach the screen.
-            }
-        }, "plumb-symja-integration-rules");
-        warmer.setDaemon(true);
-        warmer.start();
-    }
-
-    /**
      * Loads Symja's integration rules (once per process) outside any check's time limit: Symja reads them
      * on the first antiderivative, and a limit that included the reading could run out on it alone. Files
-     * that never integrate never pay for them.
+     * that never integrate, or whose integrands are sums of powers of the variable (integrated term by
+     * term without the rules), never pay for them.
      */
     static void loadIntegrationRules() {
         synchronized (Symja.class) {
