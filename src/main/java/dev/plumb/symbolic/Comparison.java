@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.matheclipse.core.expression.F;
+import org.matheclipse.core.expression.S;
 import org.matheclipse.core.interfaces.IExpr;
 import org.matheclipse.core.interfaces.ISymbol;
 
@@ -56,6 +57,13 @@ final class Comparison {
         Boolean symbolicZero;
         try {
             IExpr d = symja.eval(F.Simplify(F.Subtract(claimed, truth), assumptions));
+            if (!d.isZero() && d.has(S.Log, true)) {
+                // Logarithms of quotients written two ways (-K log(1 - u/K) against K log(K/(K - u))): each
+                // argument brought over one denominator and the logarithms split, as the exponential route
+                // below does; cheap where the general simplification can spend its whole budget.
+                IExpr split = symja.eval(F.Together(F.PowerExpand(F.ReplaceAll(d, F.RuleDelayed(F.Log(F.x_), F.Log(F.Together(F.x)))))));
+                if (split.isZero()) d = split;
+            }
             if (!d.isZero()) d = symja.eval(F.Simplify(F.PowerExpand(F.Together(d)), assumptions));
             if (!d.isZero()) {
                 // Exponential profiles compare better through their logarithms; PowerExpand is sound

@@ -120,13 +120,31 @@ final class FirstOrder {
         if (!roots.isList()) return null;
         for (IExpr r : (IAST) roots) {
             if (!r.isList() || ((IAST) r).argSize() != 1 || !((IAST) r).arg1().isRuleAST()) continue;
-            IExpr candidate = ((IAST) r).arg1().second();
+            IExpr candidate = principalBranch(((IAST) r).arg1().second());
             if (candidate.has(y, true) || !meets(candidate, g, y, b, t)) continue;
             trail.add(new TrailStep("solve for " + rel.px() + " (the root that meets the relation and boundary "
                     + b.label() + ")", rel.px() + " = " + closedForms.print(candidate)));
             return new Solution(candidate, trail);
         }
         throw new Symja.Failure("no root of the separated relation meets it at random points", false);
+    }
+
+    /** {@code a} when {@code e = a v + b} with a nonzero {@code a} free of v, else null. */
+    private IExpr linearRate(IExpr e, ISymbol v) {
+        IExpr a = symja.eval(F.D(e, v));
+        if (a.isZero() || a.has(v, true)) return null;
+        return a;
+    }
+
+    /**
+     * A root that holds on a condition over integer constants C(k) (the branches of a logarithm or an
+     * inverse function, as Symja solves {@code exp(y) = u}): its principal branch, every C(k) = 0. The
+     * caller still decides by {@link #meets} whether it solves the relation; evaluated with the condition
+     * left in, each sample point cost seconds of exact arithmetic.
+     */
+    private IExpr principalBranch(IExpr root) {
+        if (!root.isAST(S.ConditionalExpression, 3)) return root;
+        return symja.eval(F.ReplaceAll(root.first(), F.Rule(F.unaryAST1(S.C, F.$b()), F.C0)));
     }
 
     /** {f(x), h(y)} with g = f*h, or null: factor by factor, first as written, then factored, then with powers expanded. */
@@ -188,9 +206,10 @@ final class FirstOrder {
     }
 
     /**
-     * The antiderivative of a sum of powers {@code c v^k} (c free of v, k rational and not -1), term by
-     * term, or null for any other integrand. Most hydrostatic integrands are of this kind (the uniform
-     * sphere's is a polynomial), and they need none of the algebra system's integration rules, whose
+     * The antiderivative of a sum of powers {@code c v^k} (c free of v, k rational; log v for k = -1) and
+     * exponentials {@code c exp(a v + b)}, term by term, or null for any other integrand. Most hydrostatic
+     * integrands are of this kind (the uniform sphere's is a polynomial, an isothermal layer's an
+     * exponential), and they need none of the algebra system's integration rules, whose
      * loading costs more than the rest of such a file's symbolic work. The result is accepted only when
      * its derivative expands to the integrand.
      */
@@ -212,15 +231,26 @@ final class FirstOrder {
             } else {
                 factors.add(term);
             }
+            IExpr rate = null;
             for (IExpr f : factors) {
                 if (!f.has(v, true)) coefficient = F.Times(coefficient, f);
                 else if (f.equals(v)) k = F.Plus(k, F.C1);
                 else if (f.isPower() && f.base().equals(v) && f.exponent().isRational()) k = F.Plus(k, f.exponent());
+                else if (f.isPower() && f.base().equals(S.E) && rate == null && (rate = linearRate(f.exponent(), v)) != null) coefficient = F.Times(coefficient, f);
                 else return null;
             }
             IExpr raised = symja.eval(F.Plus(k, F.C1));
-            if (!raised.isRational() || raised.isZero()) return null;
-            integrated.add(F.Times(coefficient, F.Power(v, raised), F.Power(raised, F.CN1)));
+            if (rate != null) {
+                // c exp(a v + b) integrates to c exp(a v + b)/a; with a power of v beside it, by parts, left to the rules.
+                if (!raised.isOne()) return null;
+                integrated.add(F.Times(coefficient, F.Power(rate, F.CN1)));
+            } else if (raised.isZero()) {
+                integrated.add(F.Times(coefficient, F.Log(v)));
+            } else if (raised.isRational()) {
+                integrated.add(F.Times(coefficient, F.Power(v, raised), F.Power(raised, F.CN1)));
+            } else {
+                return null;
+            }
         }
         IExpr result = symja.eval(F.Plus(integrated.toArray(IExpr[]::new)));
         IExpr check = symja.eval(F.Expand(F.Subtract(F.D(result, v), expanded)));
