@@ -129,6 +129,29 @@ final class FirstOrder {
         throw new Symja.Failure("no root of the separated relation meets it at random points", false);
     }
 
+    /**
+     * The antiderivative of one factor in v: {@code u^k} with u linear in v (u = a v + b, so v itself too;
+     * {@code u^(k+1)/(a (k+1))}, or {@code log(u)/a} for k = -1) or {@code exp(u)} ({@code exp(u)/a}); else null.
+     */
+    private IExpr single(IExpr f, ISymbol v) {
+        IExpr base = f;
+        IExpr k = F.C1;
+        if (f.isPower()) {
+            base = f.base();
+            k = f.exponent();
+        }
+        if (base.equals(S.E)) {
+            IExpr a = linearRate(k, v);
+            return a == null ? null : F.Times(f, F.Power(a, F.CN1));
+        }
+        if (!k.isRational()) return null;
+        IExpr a = linearRate(base, v);
+        if (a == null) return null;
+        IExpr raised = symja.eval(F.Plus(k, F.C1));
+        if (raised.isZero()) return F.Times(F.Log(base), F.Power(a, F.CN1));
+        return F.Times(F.Power(base, raised), F.Power(F.Times(a, raised), F.CN1));
+    }
+
     /** {@code a} when {@code e = a v + b} with a nonzero {@code a} free of v, else null. */
     private IExpr linearRate(IExpr e, ISymbol v) {
         IExpr a = symja.eval(F.D(e, v));
@@ -206,8 +229,8 @@ final class FirstOrder {
     }
 
     /**
-     * The antiderivative of a sum of powers {@code c v^k} (c free of v, k rational; log v for k = -1) and
-     * exponentials {@code c exp(a v + b)}, term by term, or null for any other integrand. Most hydrostatic
+     * The antiderivative of a sum of powers {@code c u^k} (c free of v, u = a v + b, k rational; log u for
+     * k = -1) and exponentials {@code c exp(a v + b)}, term by term, or null for any other integrand. Most hydrostatic
      * integrands are of this kind (the uniform sphere's is a polynomial, an isothermal layer's an
      * exponential), and they need none of the algebra system's integration rules, whose
      * loading costs more than the rest of such a file's symbolic work. The result is accepted only when
@@ -224,36 +247,25 @@ final class FirstOrder {
         List<IExpr> integrated = new ArrayList<>();
         for (IExpr term : terms) {
             IExpr coefficient = F.C1;
-            IExpr k = F.C0;
+            IExpr varying = null;
             List<IExpr> factors = new ArrayList<>();
             if (term.isTimes()) {
                 for (IExpr f : (IAST) term) factors.add(f);
             } else {
                 factors.add(term);
             }
-            IExpr rate = null;
             for (IExpr f : factors) {
                 if (!f.has(v, true)) coefficient = F.Times(coefficient, f);
-                else if (f.equals(v)) k = F.Plus(k, F.C1);
-                else if (f.isPower() && f.base().equals(v) && f.exponent().isRational()) k = F.Plus(k, f.exponent());
-                else if (f.isPower() && f.base().equals(S.E) && rate == null && (rate = linearRate(f.exponent(), v)) != null) coefficient = F.Times(coefficient, f);
+                else if (varying == null) varying = f;
                 else return null;
             }
-            IExpr raised = symja.eval(F.Plus(k, F.C1));
-            if (rate != null) {
-                // c exp(a v + b) integrates to c exp(a v + b)/a; with a power of v beside it, by parts, left to the rules.
-                if (!raised.isOne()) return null;
-                integrated.add(F.Times(coefficient, F.Power(rate, F.CN1)));
-            } else if (raised.isZero()) {
-                integrated.add(F.Times(coefficient, F.Log(v)));
-            } else if (raised.isRational()) {
-                integrated.add(F.Times(coefficient, F.Power(v, raised), F.Power(raised, F.CN1)));
-            } else {
-                return null;
-            }
+            IExpr antiderivative = varying == null ? v : single(varying, v);
+            if (antiderivative == null) return null;
+            integrated.add(F.Times(coefficient, antiderivative));
         }
         IExpr result = symja.eval(F.Plus(integrated.toArray(IExpr[]::new)));
         IExpr check = symja.eval(F.Expand(F.Subtract(F.D(result, v), expanded)));
+        if (!check.isZero()) check = symja.eval(F.Together(check));
         return check.isZero() ? result : null;
     }
 }
