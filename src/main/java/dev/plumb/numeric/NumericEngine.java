@@ -177,7 +177,7 @@ public final class NumericEngine {
             Signs.check(model, c.label(), implicit(model), solution, diagnostics);
             List<QuantityRow> rows = new ArrayList<>();
             for (Wanted w : wanted) rows.add(row(model, c, w, solution, tight, closedForms, notes, diagnostics));
-            for (Stmt.Expect e : expects) checks.add(expect(model, units, c, e, solution, tight, diagnostics));
+            for (Stmt.Expect e : expects) checks.add(expect(model, units, c, e, solution, tight, closedForms, diagnostics));
             cases.add(new CaseResult(c.label(), solution.method(), rows, null));
         }
         List<Sequences.Result> sequences = Sequences.run(model, closedForms, options, checks, progress);
@@ -272,8 +272,14 @@ public final class NumericEngine {
                 source);
     }
 
+    /**
+     * An expectation decided on the numeric value when ten times its estimated error cannot reach across
+     * the tolerance's edge; otherwise on the derived closed form where there is one (a value far below the
+     * profile's scale, such as a pressure e^-150 times the base one, is noise to the integrator but exact
+     * in the closed form), else undecided. Without an error estimate, on the numeric value alone.
+     */
     private static Check expect(Model model, FileUnits units, dev.plumb.model.CaseValues c, Stmt.Expect e, Solution solution,
-                                Solution tight, List<Diagnostic> diagnostics) {
+                                Solution tight, Map<String, Expr> closedForms, List<Diagnostic> diagnostics) {
         String label = label(e);
         double value;
         try {
@@ -303,27 +309,57 @@ public final class NumericEngine {
             if (tolUnit == null || !tolUnit.dimension().equals(shown.dimension())) tolUnit = shown;
             tolText = FileUnits.format(allowed, tolUnit, "%.6g") + " absolute";
         }
+        double error = Double.NaN;
+        if (tight != null) {
+            try {
+                error = Math.abs(tight.evaluate(e.lhs()) - value);
+            } catch (SolveException ignored) {
+                // No estimate; the check is decided on the value alone.
+            }
+        }
+        String where = ExprPrinter.print(e.lhs()) + (implicit(model) ? "" : " at " + c.label());
         double diff = Math.abs(value - expected);
         double rel = expected != 0 ? diff / Math.abs(expected) : diff;
-        Status status = diff <= allowed ? Status.HOLDS : Status.FAILS;
-        String message = String.format(Locale.ROOT, "%s%s: numeric %s, expected %s, relative difference %.3g (allowed %s)",
-                ExprPrinter.print(e.lhs()), implicit(model) ? "" : " at " + c.label(), FileUnits.format(value, shown, "%.10g"),
-                FileUnits.format(expected, shown, "%.10g"), rel, tolText);
+        Status status;
+        String message;
+        // The estimate is the change under a tighter tolerance, not a bound: a margin of ten of them before the
+        // value decides either way.
+        double margin = ERROR_MARGIN * error;
+        boolean unresolved = Double.isFinite(error) && diff + margin > allowed && diff - margin <= allowed;
+        Expr derived = closedForms.get(ExprPrinter.print(e.lhs()));
+        Double closed = unresolved && derived != null ? constant(model, derived, c.values()) : null;
+        if (!unresolved) {
+            status = diff <= allowed ? Status.HOLDS : Status.FAILS;
+            message = String.format(Locale.ROOT, "%s: numeric %s, expected %s, relative difference %.3g (allowed %s)",
+                    where, FileUnits.format(value, shown, "%.10g"), FileUnits.format(expected, shown, "%.10g"), rel, tolText);
+        } else if (closed != null && Double.isFinite(closed)) {
+            double closedDiff = Math.abs(closed - expected);
+            double closedRel = expected != 0 ? closedDiff / Math.abs(expected) : closedDiff;
+            status = closedDiff <= allowed ? Status.HOLDS : Status.FAILS;
+            message = String.format(Locale.ROOT, "%s: closed form %s, expected %s, relative difference %.3g (allowed %s); decided on the"
+                            + " derived closed form, since the numeric value %s has an estimated error of %s, too large to decide this tolerance",
+                    where, FileUnits.format(closed, shown, "%.10g"), FileUnits.format(expected, shown, "%.10g"), closedRel, tolText,
+                    FileUnits.format(value, shown, "%.6g"), FileUnits.format(error, shown, "%.2g"));
+        } else {
+            status = Status.UNDECIDED;
+            message = String.format(Locale.ROOT, "%s: numeric %s with an estimated error of %s, expected %s (allowed %s): the error"
+                            + " reaches across the tolerance's edge, so the integration cannot decide this; there is no closed form to decide it",
+                    where, FileUnits.format(value, shown, "%.10g"), FileUnits.format(error, shown, "%.2g"),
+                    FileUnits.format(expected, shown, "%.10g"), tolText);
+        }
         Check check = Check.of("expect", label, e.span(), status, message)
                 .with("case", c.label()).with("numeric", value).with("expected", expected).with("rel_diff", rel).with("unit", unit);
         if (!shown.dimension().isNone() && !shown.text().equals(unit)) {
             check = check.with("shown_unit", shown.text()).with("shown_numeric", value / shown.factor())
                     .with("shown_expected", expected / shown.factor());
         }
-        if (tight != null) {
-            try {
-                check = check.with("error_estimate", Math.abs(tight.evaluate(e.lhs()) - value));
-            } catch (SolveException ignored) {
-                // No estimate; the check itself stands.
-            }
-        }
+        if (Double.isFinite(error)) check = check.with("error_estimate", error);
+        if (closed != null && Double.isFinite(closed)) check = check.with("closed_form", closed);
         return check;
     }
+
+    /** How many error estimates must separate a numeric value from a tolerance's edge before it decides an expectation. */
+    static final double ERROR_MARGIN = 10;
 
     /** A request no solve can honour, reported once per place. */
     private static void request(List<Diagnostic> diagnostics, SolveException ex, String casePrefix) {

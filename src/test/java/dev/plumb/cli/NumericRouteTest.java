@@ -114,7 +114,9 @@ class NumericRouteTest {
         assertEquals("holds", claim(t, "profile").get("status"), claim(t, "profile").toString());
         Map<String, Object> wrong = claim(t, "wrong");
         assertEquals("fails", wrong.get("status"), wrong.toString());
-        assertTrue(String.valueOf(wrong.get("message")).contains("not by a constant factor"), wrong.toString());
+        // Decided by either route, the message says the two sides differ by more than a constant factor.
+        String why = String.valueOf(wrong.get("message"));
+        assertTrue(why.contains("not by a constant factor") || why.contains("claimed/true depends on"), wrong.toString());
     }
 
     @Test
