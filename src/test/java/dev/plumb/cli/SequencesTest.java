@@ -54,6 +54,20 @@ class SequencesTest {
     }
 
     @Test
+    void aToleranceFinerThanTheSequenceResolvesIsUndecided() {
+        // The same peak, 1/e, asked to 1e-15: past what a sequence of solves can promise, whatever the value.
+        CheckedText r = CheckedText.of("peak-tight", """
+                param x > 0
+                let f = x*exp(-x)
+                sweep s: x from 0.1 to 10 log 15
+                expect top: max f over s = 0.36787944117144233 within 1e-15
+                """);
+        Map<String, Object> top = r.list("checks").stream().filter(c -> "top".equals(c.get("label"))).findFirst().orElseThrow();
+        assertEquals("undecided", top.get("status"), top.toString());
+        assertTrue(String.valueOf(top.get("message")).contains("resolution"), top.toString());
+    }
+
+    @Test
     void theMinimumOfAParabolaIsFoundOnALinearSweepAndAWrongValueFails() throws IOException {
         // (x - 2)^2 + 3 is smallest at x = 2, where it is 3.
         Path f = Files.writeString(dir.resolve("bowl.plumb"), """
