@@ -62,7 +62,7 @@ class SequencesTest {
                 sweep s: x from 0.1 to 10 log 15
                 expect top: max f over s = 0.36787944117144233 within 1e-15
                 """);
-        Map<String, Object> top = r.list("checks").stream().filter(c -> "top".equals(c.get("label"))).findFirst().orElseThrow();
+        Map<String, Object> top = r.list("checks").stream().filter(c -> "expect".equals(c.get("kind")) && "top".equals(c.get("label"))).findFirst().orElseThrow();
         assertEquals("undecided", top.get("status"), top.toString());
         assertTrue(String.valueOf(top.get("message")).contains("resolution"), top.toString());
     }
