@@ -231,7 +231,7 @@ final class UnitInference {
                 default -> {
                     if (solver.unify(a, DimForm.NONE).isPresent()) {
                         diagnostics.failure(c.args().get(0).span(), "the argument of '" + c.callee() + "' must be dimensionless, found "
-                                + solver.describe(a), "divide by a reference value of the same unit, e.g. log(P/P0)");
+                                + solver.describe(a), hint(c.callee()));
                     }
                     yield DimForm.NONE;
                 }
@@ -361,5 +361,16 @@ final class UnitInference {
         if (e == null) return "";
         String s = ExprPrinter.print(e);
         return s.length() > 22 ? s.substring(0, 19) + "..." : s;
+    }
+
+    /** How to make a function's argument dimensionless, with an example of that very function. */
+    private static String hint(String function) {
+        String example = switch (function) {
+            case "exp" -> "exp(-z/H)";
+            case "log", "ln" -> "log(P/P0)";
+            case "sin", "cos", "tan" -> function + "(k*r), with k in 1/m";
+            default -> function + "(x/x0)";
+        };
+        return "divide by a reference value of the same unit (or multiply by its inverse), e.g. " + example;
     }
 }

@@ -86,11 +86,13 @@ final class Verification {
 
     Check step(Stmt.Step s, List<Check> unitChecks) {
         String label = label(s.label(), s.span());
-        boolean unitsFail = unitChecks.stream().anyMatch(u -> u.span().equals(s.span()) && u.status() == Status.FAILS);
+        Check unitFailure = unitChecks.stream().filter(u -> u.span().equals(s.span()) && u.status() == Status.FAILS).findFirst().orElse(null);
         try {
             Check c = stepAgainstKnowledge(s, label);
-            if (unitsFail) {
-                c = new Check("step", label, s.span(), Status.FAILS, "the two sides have different units; " + c.message(), c.factor(), c.extra());
+            if (unitFailure != null) {
+                // The unit check's own words (different units on the two sides, or a unit error inside one), then the comparison's.
+                c = new Check("step", label, s.span(), Status.FAILS, "units: " + unitFailure.message() + "; compared with what the relations give: "
+                        + c.message(), c.factor(), c.extra());
             }
             if (c.status() == Status.HOLDS) recordProfile(s);
             return routed(c, "symbolic");
