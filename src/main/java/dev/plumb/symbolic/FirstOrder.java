@@ -237,7 +237,25 @@ final class FirstOrder {
      * its derivative expands to the integrand.
      */
     private IExpr powerSum(IExpr g, ISymbol v) {
-        IExpr expanded = symja.eval(F.Expand(g));
+        try {
+            IExpr asWritten = termwise(g, v);
+            if (asWritten != null || !expandable(g)) return asWritten;
+            return termwise(symja.eval(F.Expand(g)), v);
+        } catch (Symja.Failure f) {
+            return null;
+        }
+    }
+
+    /** Whether expanding {@code e} stays small: no integer power above 16 (a (1 + x)^1000000 is left whole). */
+    private static boolean expandable(IExpr e) {
+        if (e.isPower() && e.exponent().isInteger() && Math.abs(e.exponent().evalDouble()) > 16) return false;
+        if (e instanceof IAST ast) {
+            for (IExpr arg : ast) if (!expandable(arg)) return false;
+        }
+        return true;
+    }
+
+    private IExpr termwise(IExpr expanded, ISymbol v) {
         List<IExpr> terms = new ArrayList<>();
         if (expanded.isPlus()) {
             for (IExpr term : (IAST) expanded) terms.add(term);
@@ -264,8 +282,9 @@ final class FirstOrder {
             integrated.add(F.Times(coefficient, antiderivative));
         }
         IExpr result = symja.eval(F.Plus(integrated.toArray(IExpr[]::new)));
-        IExpr check = symja.eval(F.Expand(F.Subtract(F.D(result, v), expanded)));
-        if (!check.isZero()) check = symja.eval(F.Together(check));
+        IExpr check = symja.eval(F.Subtract(F.D(result, v), expanded));
+        if (!check.isZero() && expandable(check)) check = symja.eval(F.Expand(check));
+        if (!check.isZero() && expandable(check)) check = symja.eval(F.Together(check));
         return check.isZero() ? result : null;
     }
 }
