@@ -8,7 +8,8 @@ import java.util.TreeMap;
 
 /**
  * The long fuzzing run, outside the test suite: the same inputs as {@link FuzzTest}, as many as asked,
- * with counts of exit statuses, hangs and exceptions, and every failing input kept in a folder. {@code guard}
+ * with counts of exit statuses, hangs and exceptions, and every failing input kept in a folder (inputs slower
+ * than 10 s by the clock in its slow/ subfolder). {@code guard}
  * is the CPU time in seconds after which an input counts as a hang (or ten times that by the clock).
  *
  * <pre>
@@ -50,7 +51,12 @@ public final class FuzzRun {
                 kindSeconds.merge(kind, out.seconds(), Double::sum);
                 total += out.seconds();
                 slowest = Math.max(slowest, out.seconds());
-                if (out.seconds() > 10) slow++;
+                if (out.seconds() > 10) {
+                    // Slow but correct inputs are kept too (under slow/), to be timed again on a quiet machine.
+                    slow++;
+                    Path f = Fuzzing.keep(out, keep.resolve("slow"));
+                    System.out.printf(Locale.ROOT, "SLOW %d (%s): %.1f s -> %s%n", i, out.input().kind(), out.seconds(), f);
+                }
                 if (!out.ok()) {
                     failing++;
                     Path f = Fuzzing.keep(out, keep);
