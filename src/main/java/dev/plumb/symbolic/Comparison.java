@@ -57,15 +57,18 @@ final class Comparison {
         Boolean symbolicZero;
         try {
             IExpr d = symja.eval(F.Simplify(F.Subtract(claimed, truth), assumptions));
-            if (!d.isZero() && d.has(S.Log, true)) {
+            // PowerExpand ((a b)^k = a^k b^k, log(a/b) = log a - log b) holds for positive bases only: not
+            // used where a symbol that may be negative or zero appears.
+            boolean positive = translation.table().signed().stream().noneMatch(s -> claimed.has(s, true) || truth.has(s, true));
+            if (!d.isZero() && positive && d.has(S.Log, true)) {
                 // Logarithms of quotients written two ways (-K log(1 - u/K) against K log(K/(K - u))): each
                 // argument brought over one denominator and the logarithms split, as the exponential route
                 // below does; cheap where the general simplification can spend its whole budget.
                 IExpr split = symja.eval(F.Together(F.PowerExpand(F.ReplaceAll(d, F.RuleDelayed(F.Log(F.x_), F.Log(F.Together(F.x)))))));
                 if (split.isZero()) d = split;
             }
-            if (!d.isZero()) d = symja.eval(F.Simplify(F.PowerExpand(F.Together(d)), assumptions));
-            if (!d.isZero()) {
+            if (!d.isZero() && positive) d = symja.eval(F.Simplify(F.PowerExpand(F.Together(d)), assumptions));
+            if (!d.isZero() && positive) {
                 // Exponential profiles compare better through their logarithms; PowerExpand is sound
                 // here because every base is positive under the assumptions, and the numeric test must agree.
                 IExpr logs = symja.eval(F.Simplify(F.Subtract(F.PowerExpand(F.Log(F.Together(claimed))),
@@ -108,7 +111,32 @@ final class Comparison {
         }
         List<String> mentioned = translation.table().all().entrySet().stream()
                 .filter(e -> claimedAsWritten.has(e.getValue(), true) || truthAsWritten.has(e.getValue(), true)).map(Map.Entry::getKey).toList();
-        return diagnose(claimed, truth, samples, points, mentioned);
+        Verdict verdict = diagnose(claimed, truth, samples, points, mentioned);
+        String signs = onlyWherePositive(claimed, truth, samples, points);
+        return signs == null || verdict.status() != Status.FAILS ? verdict
+                : new Verdict(verdict.status(), verdict.message() + "; " + signs, verdict.factor(), verdict.ratio());
+    }
+
+    /**
+     * When the two sides agree at every sample point where the symbols that may be negative are positive,
+     * and differ only where one is negative: a sentence that says so and how to declare them positive; else null.
+     */
+    private String onlyWherePositive(IExpr claimed, IExpr truth, List<BigDecimal[]> samples, List<Map<ISymbol, IExpr>> points) {
+        List<ISymbol> signed = translation.table().signed().stream().filter(s -> claimed.has(s, true) || truth.has(s, true)).toList();
+        if (signed.isEmpty()) return null;
+        int positive = 0;
+        for (int i = 0; i < samples.size(); i++) {
+            Map<ISymbol, IExpr> p = points.get(i);
+            boolean allPositive = signed.stream().allMatch(s -> p.get(s) == null || Sampler.decimal(p.get(s)) == null || Sampler.decimal(p.get(s)).signum() > 0);
+            if (!allPositive) continue;
+            if (!same(samples.get(i)[0], samples.get(i)[1], ZERO_TOLERANCE)) return null;
+            positive++;
+        }
+        if (positive < 2) return null;
+        List<String> names = signed.stream().map(s -> translation.table().name(s)).toList();
+        String list = String.join(", ", names);
+        return "the two sides agree wherever " + list + (names.size() == 1 ? " is" : " are") + " positive and differ for negative values; "
+                + list + (names.size() == 1 ? " is" : " are") + " declared without '> 0' (add it if " + (names.size() == 1 ? "it is" : "they are") + " positive)";
     }
 
     /** {@code mentioned}: the names the two sides use as written, before the rewriting into the basis. */

@@ -85,9 +85,10 @@ final class Sampler {
             } else if (constant.isPresent()) {
                 values.put(sym, Translation.rational(constant.get().multiply(uniform(0.5, 2)).round(MC)));
             } else if (around != null && around.values().containsKey(entry.getKey())) {
-                values.put(sym, Translation.rational(new BigDecimal(around.values().get(entry.getKey())).multiply(uniform(0.5, 2)).round(MC)));
+                values.put(sym, Translation.rational(new BigDecimal(around.values().get(entry.getKey())).multiply(uniform(0.5, 2))
+                        .multiply(sign(sym)).round(MC)));
             } else {
-                values.put(sym, Translation.rational(uniform(0.5, 3)));
+                values.put(sym, Translation.rational(uniform(0.5, 3).multiply(sign(sym))));
             }
         }
         if (coordinate != null) {
@@ -120,6 +121,17 @@ final class Sampler {
             return fallback;
         }
     }
+
+    /**
+     * -1 half the time for a symbol that may be negative ({@link SymbolTable#signed}), else 1: a claim must
+     * hold for every value its declarations allow, and sqrt(a^2) = a holds only for half of them.
+     */
+    private BigDecimal sign(ISymbol sym) {
+        if (signed == null) signed = table.signed();
+        return signed.contains(sym) && random.nextBoolean() ? BigDecimal.ONE.negate() : BigDecimal.ONE;
+    }
+
+    private java.util.Set<ISymbol> signed;
 
     private BigDecimal uniform(double lo, double hi) {
         double v = lo + (hi - lo) * random.nextDouble();

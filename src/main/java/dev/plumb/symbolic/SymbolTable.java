@@ -1,5 +1,6 @@
 package dev.plumb.symbolic;
 
+import dev.plumb.lang.Expr;
 import dev.plumb.lang.Stmt;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
@@ -156,6 +157,46 @@ final class SymbolTable {
     }
 
     /** What simplification may assume: signs of parameters and constants; the coordinate inside its interval. */
+    /**
+     * The symbols that may be zero or negative: free parameters declared without {@code > 0}, {@code >= 0}
+     * or a lower bound, fixed parameters whose value is not positive, and the coordinate when its
+     * interval may start below 0. Rewrites that hold only for positive bases (PowerExpand) are not
+     * used on expressions that hold them, and sample points give them both signs.
+     */
+    java.util.Set<ISymbol> signed() {
+        java.util.Set<ISymbol> out = new LinkedHashSet<>();
+        for (Symbol s : model.symbols().values()) {
+            ISymbol sym = toSymja.get(s.name());
+            if (sym == null) continue;
+            boolean signed = s instanceof Symbol.FreeParam ? !nonNegative(s)
+                    : s instanceof Symbol.FixedParam f ? !(f.value() > 0)
+                    : s instanceof Symbol.Coordinate c && !nonNegative(c.from());
+            if (signed) out.add(sym);
+        }
+        return out;
+    }
+
+    /** Whether a declared symbol is known to be at least 0 from its declaration alone. */
+    private boolean nonNegative(Symbol s) {
+        if (s instanceof Symbol.FreeParam p) {
+            return p.assumption() != null || p.bounds().stream().anyMatch(b -> (b.op() == Expr.CompareOp.GT || b.op() == Expr.CompareOp.GE)
+                    && nonNegative(b.value()));
+        }
+        if (s instanceof Symbol.FixedParam f) return f.value() >= 0;
+        return s instanceof Symbol.Builtin;
+    }
+
+    /** Whether an expression of declared names is at least 0: numbers, such names, and sums, products, quotients of them. */
+    private boolean nonNegative(Expr e) {
+        if (e instanceof Expr.Num n) return n.value() >= 0;
+        if (e instanceof Expr.Quantity q) return q.value() >= 0;
+        if (e instanceof Expr.Name n) return model.symbols().get(n.id()) != null && nonNegative(model.symbols().get(n.id()));
+        if (e instanceof Expr.Binary b) {
+            return b.op() != Expr.BinaryOp.SUB && b.op() != Expr.BinaryOp.POW && nonNegative(b.left()) && nonNegative(b.right());
+        }
+        return false;
+    }
+
     IExpr assumptions(Translation t) {
         List<IExpr> facts = new ArrayList<>();
         for (Symbol s : model.symbols().values()) {
