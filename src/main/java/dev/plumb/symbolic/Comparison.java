@@ -112,9 +112,30 @@ final class Comparison {
         List<String> mentioned = translation.table().all().entrySet().stream()
                 .filter(e -> claimedAsWritten.has(e.getValue(), true) || truthAsWritten.has(e.getValue(), true)).map(Map.Entry::getKey).toList();
         Verdict verdict = diagnose(claimed, truth, samples, points, mentioned);
-        String signs = onlyWherePositive(claimed, truth, samples, points);
-        return signs == null || verdict.status() != Status.FAILS ? verdict
-                : new Verdict(verdict.status(), verdict.message() + "; " + signs, verdict.factor(), verdict.ratio());
+        if (verdict.status() != Status.FAILS) return verdict;
+        String more = onlyWherePositive(claimed, truth, samples, points);
+        if (more == null && verdict.factor() == null) more = flippedTerm(claimed, truth);
+        return more == null ? verdict : new Verdict(verdict.status(), verdict.message() + "; " + more, verdict.factor(), verdict.ratio());
+    }
+
+    /**
+     * When the claim differs from the truth by one term of the truth taken with the wrong sign
+     * (claimed - true = -2 t, t a term of the true side), a sentence naming that term; else null.
+     */
+    private String flippedTerm(IExpr claimed, IExpr truth) {
+        try {
+            IExpr half = symja.eval(F.Expand(F.Times(F.CN1D2, F.Subtract(claimed, truth))));
+            IExpr terms = symja.eval(F.Expand(truth));
+            if (half.isZero() || !terms.isPlus()) return null;
+            for (IExpr t : (org.matheclipse.core.interfaces.IAST) terms) {
+                if (symja.eval(F.Subtract(t, half)).isZero()) {
+                    return print(t).map(p -> "the term " + p + " has the wrong sign").orElse(null);
+                }
+            }
+        } catch (Symja.Failure ignored) {
+            // Without the term, the verdict's own words stand.
+        }
+        return null;
     }
 
     /**
