@@ -126,11 +126,40 @@ final class Comparison {
         try {
             IExpr half = symja.eval(F.Expand(F.Times(F.CN1D2, F.Subtract(claimed, truth))));
             IExpr terms = symja.eval(F.Expand(truth));
-            if (half.isZero() || !terms.isPlus()) return null;
+            if (half.isZero() || !terms.isPlus()) return flippedExponent(claimed, truth);
             for (IExpr t : (org.matheclipse.core.interfaces.IAST) terms) {
                 if (symja.eval(F.Subtract(t, half)).isZero()) {
                     return print(t).map(p -> "the term " + p + " has the wrong sign").orElse(null);
                 }
+            }
+        } catch (Symja.Failure ignored) {
+            // Without the term, the verdict's own words stand.
+        }
+        return flippedExponent(claimed, truth);
+    }
+
+    /**
+     * The same for an exponent: when log(claimed) - log(true) = -2 t with t a term of log(true) that holds
+     * the variables (an exponential profile with its exponent's sign flipped), a sentence naming it; else
+     * null. Only where every symbol is positive, since the logarithms are split.
+     */
+    private String flippedExponent(IExpr claimed, IExpr truth) {
+        if (!truth.has(S.E, true) || translation.table().signed().stream().anyMatch(s -> claimed.has(s, true) || truth.has(s, true))) return null;
+        try {
+            IExpr logTruth = symja.eval(F.Expand(F.PowerExpand(F.Log(truth))));
+            IExpr half = symja.eval(F.Expand(F.Times(F.CN1D2, F.Subtract(F.PowerExpand(F.Log(claimed)), logTruth))));
+            if (half.isZero() || half.isNumber()) return null;
+            List<IExpr> terms = new ArrayList<>();
+            if (logTruth.isPlus()) {
+                for (IExpr t : (org.matheclipse.core.interfaces.IAST) logTruth) terms.add(t);
+            } else {
+                terms.add(logTruth);
+            }
+            IExpr sum = F.C0;
+            for (IExpr t : terms) if (!t.isAST(S.Log)) sum = F.Plus(sum, t);
+            IExpr exponent = symja.eval(sum);
+            if (!exponent.isZero() && symja.eval(F.Subtract(exponent, half)).isZero()) {
+                return print(exponent).map(p -> "the exponent " + p + " has the wrong sign").orElse(null);
             }
         } catch (Symja.Failure ignored) {
             // Without the term, the verdict's own words stand.

@@ -46,4 +46,25 @@ class FlippedTermTest {
         assertEquals("2", doubled.get("factor"), doubled.toString());
         assertFalse(String.valueOf(doubled.get("message")).contains("wrong sign"), doubled.toString());
     }
+
+    /** The isothermal atmosphere of constant scale height H: P(z) = P0 exp(-z/H) (integration of dP/dz = -P/H). */
+    @Test
+    void anExponentWithTheWrongSignIsNamed() {
+        CheckedText t = CheckedText.of("isothermal", """
+                param H [m] > 0
+                param P0 [Pa] > 0
+                param D [m] > 0
+                coord z [m] from 0 to D
+                unknown P(z) [Pa]
+                relation hs: P'(z) = -P(z)/H
+                boundary ground: P(0) = P0
+                claim top: P(D) = P0*exp(-D/H)
+                claim flipped: P(D) = P0*exp(D/H)
+                """);
+        assertEquals("holds", claim(t, "top").get("status"));
+        Map<String, Object> flipped = claim(t, "flipped");
+        assertEquals("fails", flipped.get("status"), flipped.toString());
+        assertTrue(String.valueOf(flipped.get("message")).contains("the exponent -(D/H) has the wrong sign")
+                || String.valueOf(flipped.get("message")).contains("the exponent -D/H has the wrong sign"), flipped.toString());
+    }
 }
