@@ -55,8 +55,10 @@ final class Comparison {
         IExpr truth = translation.table().inBasis(truthAsWritten);
         String symbolic;
         Boolean symbolicZero;
+        IExpr difference = null;
         try {
             IExpr d = symja.eval(F.Simplify(F.Subtract(claimed, truth), assumptions));
+            difference = d;
             // PowerExpand ((a b)^k = a^k b^k, log(a/b) = log a - log b) holds for positive bases only: not
             // used where a symbol that may be negative or zero appears.
             boolean positive = translation.table().signed().stream().noneMatch(s -> claimed.has(s, true) || truth.has(s, true));
@@ -115,6 +117,10 @@ final class Comparison {
         if (verdict.status() != Status.FAILS) return verdict;
         String more = onlyWherePositive(claimed, truth, samples, points);
         if (more == null && verdict.factor() == null) more = flippedTerm(claimed, truth);
+        if (more == null && verdict.factor() == null && difference != null && !difference.isZero() && difference.leafCount() <= 12
+                && translation.table().signed().stream().noneMatch(difference::has)) {
+            more = print(difference).map(p -> "claimed - true = " + p).orElse(null);
+        }
         return more == null ? verdict : new Verdict(verdict.status(), verdict.message() + "; " + more, verdict.factor(), verdict.ratio());
     }
 

@@ -45,6 +45,10 @@ class FlippedTermTest {
         assertEquals("fails", doubled.get("status"), doubled.toString());
         assertEquals("2", doubled.get("factor"), doubled.toString());
         assertFalse(String.valueOf(doubled.get("message")).contains("wrong sign"), doubled.toString());
+        // A claim off by one compact term is told the difference: here 2 rho g0 D - (rho g0 D) = rho g0 D too much.
+        Map<String, Object> extra = claim(CheckedText.of("lake-extra", LAKE + "claim extra: P(-D) = P0 + 2*rho*g0*D\n"), "extra");
+        assertEquals("fails", extra.get("status"), extra.toString());
+        assertTrue(String.valueOf(extra.get("message")).contains("claimed - true = rho*g0*D"), extra.toString());
     }
 
     /** The isothermal atmosphere of constant scale height H: P(z) = P0 exp(-z/H) (integration of dP/dz = -P/H). */
