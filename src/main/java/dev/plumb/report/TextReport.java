@@ -121,8 +121,13 @@ public final class TextReport {
         java.util.List<String> heads = new java.util.ArrayList<>();
         heads.add(spec.param() + " [" + r.paramUnit() + "]");
         for (var c : r.columns()) heads.add(c.expr() + " [" + (c.shownUnit() != null ? c.shownUnit() : c.unit()) + "]");
+        // A shown column that repeats the swept parameter in its unit is left out of the table (the curve still uses it).
+        boolean[] repeats = new boolean[r.columns().size()];
+        for (int k = 0; k < repeats.length; k++) repeats[k] = heads.get(k + 1).equals(heads.get(0));
         StringBuilder head = new StringBuilder("   ");
-        for (String h : heads) head.append(String.format(Locale.ROOT, " %-16s", Style.inert(h)));
+        for (int k = 0; k < heads.size(); k++) {
+            if (k == 0 || !repeats[k - 1]) head.append(String.format(Locale.ROOT, " %-16s", Style.inert(heads.get(k))));
+        }
         out.append(head.toString().stripTrailing()).append('\n');
         int step = Math.max(1, (int) Math.ceil(spec.size() / (double) MAX_SWEEP_ROWS));
         for (int i = 0; i < spec.size(); i++) {
@@ -133,6 +138,7 @@ public final class TextReport {
                 row.append(' ').append(style.red("not solved: ")).append(Style.inert(p.failure()));
             } else {
                 for (int k = 0; k < r.columns().size(); k++) {
+                    if (repeats[k]) continue;
                     double v = dev.plumb.numeric.Sequences.shown(r.columns().get(k), p.quantities()[k]);
                     row.append(String.format(Locale.ROOT, " %-16s", Double.isFinite(v) ? String.format(Locale.ROOT, "%.6e", v) : "-"));
                 }
