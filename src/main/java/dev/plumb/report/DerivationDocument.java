@@ -304,7 +304,9 @@ public final class DerivationDocument {
             if (!out.isEmpty()) out.add(Markup.text(", "));
             out.add(Markup.Inline.Math.of(name(String.valueOf(e.getKey()))));
             out.add(Markup.text(" "));
-            out.add(new Markup.Inline.Number(String.valueOf(e.getValue())));
+            // Exponents found by fitting are floating point (0.9999999999999938): three decimals say what they are.
+            Object v = e.getValue();
+            out.add(new Markup.Inline.Number(v instanceof Double d ? String.format(Locale.ROOT, "%.3f", d) : String.valueOf(v)));
         }
         return new Markup.Cell(out);
     }

@@ -21,8 +21,6 @@ public final class LatexMarkup implements Markup {
             "\\usepgfplotslibrary{groupplots}", "\\pgfplotsset{compat=1.16}");
     /** Inline formulas longer than this (in plumb's notation) are put in a box that shrinks to the line when wider. */
     private static final int LONG_INLINE = 30;
-    /** About how many characters of small type fit across a table before it must wrap. */
-    private static final int TABLE_CHARACTERS = 84;
 
     /** The standalone document's body and the fragment's: the same but for the level of the headings. */
     private final StringBuilder body = new StringBuilder();
@@ -44,7 +42,8 @@ public final class LatexMarkup implements Markup {
 
     @Override
     public void heading(int level, String text) {
-        String t = LatexPrinter.escape(text);
+        // Headings are set ragged right: a long title with a hyphenated name would otherwise run into the margin.
+        String t = "\\raggedright " + LatexPrinter.escape(text);
         if (level == 1) {
             title = text;
             fragment.append("\\section*{").append(t).append("}\n\n");
@@ -165,33 +164,65 @@ public final class LatexMarkup implements Markup {
     public void tabulate(List<Cell> header, List<List<Cell>> rows) {
         int n = header.size();
         int[] widest = new int[n];
+        int[] unbreakable = new int[n];
         for (List<Cell> row : concat(header, rows)) {
-            for (int k = 0; k < n && k < row.size(); k++) widest[k] = Math.max(widest[k], row.get(k).length());
-        }
-        // Long cells wrap (an X column); then the widest of the rest wraps until the others fit on a line each.
-        boolean[] wraps = new boolean[n];
-        for (int k = 0; k < n; k++) wraps[k] = widest[k] > 30;
-        while (true) {
-            int fixed = 0;
-            int widestFixed = -1;
-            for (int k = 0; k < n; k++) {
-                if (wraps[k]) continue;
-                fixed += widest[k] + 2;
-                if (widestFixed < 0 || widest[k] > widest[widestFixed]) widestFixed = k;
+            for (int k = 0; k < n && k < row.size(); k++) {
+                widest[k] = Math.max(widest[k], row.get(k).length());
+                unbreakable[k] = Math.max(unbreakable[k], longestPiece(row.get(k)));
             }
-            boolean none = count(wraps) == 0;
-            if (widestFixed < 0 || fixed + 14 * count(wraps) <= TABLE_CHARACTERS && !none) break;
-            // xltabular needs at least one X column; the widest takes the slack.
-            wraps[widestFixed] = true;
         }
+        // A column wraps (X) when it holds text that can break and is more than a few words wide; a column of
+        // numbers, short words or one long name keeps its natural width, since wrapping could not narrow it.
+        // xltabular needs one X column: when none qualifies, the widest breakable column (or the widest) wraps.
+        boolean[] wraps = new boolean[n];
+        int widestBreakable = -1;
+        int widestColumn = 0;
+        for (int k = 0; k < n; k++) {
+            boolean breakable = widest[k] > unbreakable[k];
+            wraps[k] = breakable && widest[k] > 14;
+            if (breakable && (widestBreakable < 0 || widest[k] > widest[widestBreakable])) widestBreakable = k;
+            if (widest[k] > widest[widestColumn]) widestColumn = k;
+        }
+        if (count(wraps) == 0) wraps[widestBreakable >= 0 ? widestBreakable : widestColumn] = true;
         StringBuilder spec = new StringBuilder("@{}");
-        for (int k = 0; k < n; k++) spec.append(wraps[k] ? ">{\\raggedright\\arraybackslash}X" : "l");
+        // Wrapping columns share the width by what they hold: at least their longest unbreakable piece, at most 40 characters.
+        double[] weight = new double[n];
+        double total = 0;
+        for (int k = 0; k < n; k++) {
+            if (!wraps[k]) continue;
+            weight[k] = Math.max(unbreakable[k], Math.min(widest[k], 40)) + 2;
+            total += weight[k];
+        }
+        int wrapping = count(wraps);
+        for (int k = 0; k < n; k++) {
+            if (!wraps[k]) {
+                spec.append('l');
+                continue;
+            }
+            String share = String.format(Locale.ROOT, "%.3f", wrapping * weight[k] / total);
+            spec.append(">{\\raggedright\\arraybackslash\\hsize=").append(share).append("\\hsize\\linewidth=\\hsize}X");
+        }
         spec.append("@{}");
-        StringBuilder t = new StringBuilder("{\\small\n\\begin{xltabular}{\\linewidth}{").append(spec).append("}\n\\toprule\n");
+        StringBuilder t = new StringBuilder(n >= 6 ? "{\\footnotesize\\setlength{\\tabcolsep}{4pt}" : "{\\small").append("\n\\begin{xltabular}{\\linewidth}{").append(spec).append("}\n\\toprule\n");
         t.append(row(header)).append("\\midrule\n\\endhead\n");
         for (List<Cell> r : rows) t.append(row(r));
         t.append("\\bottomrule\n\\end{xltabular}}\n\n");
         put(t.toString());
+    }
+
+    /** The longest run of a cell's text that cannot break across lines (a word, a number, a short formula). */
+    private static int longestPiece(Cell c) {
+        int longest = 0;
+        for (Inline i : c.runs()) {
+            if (i instanceof Inline.Text t) {
+                for (String w : t.text().split(" ")) longest = Math.max(longest, w.length());
+            } else {
+                int n = Cell.of(i).length();
+                // A long formula shrinks to the column (plumbfit), so it does not hold the column wide.
+                longest = Math.max(longest, i instanceof Inline.Math && n > LONG_INLINE ? 10 : n);
+            }
+        }
+        return longest;
     }
 
     private static int count(boolean[] b) {

@@ -94,10 +94,15 @@ final class MessageRuns {
         return out;
     }
 
-    /** A word that is a call of a known name, {@code P(0)} or {@code P'(r)}, with punctuation after it. */
+    /**
+     * A word that is a formula of known names on its own, with punctuation after it: a call such as
+     * {@code P(0)} or {@code P'(r)}, or a product, quotient or power such as {@code m_u^(-1)*M}.
+     */
     private Expr lone(String word) {
         String core = word.replaceAll("[,;:.]+$", "");
-        if (!core.matches("[\\p{L}_][\\p{L}\\p{N}_]*'*\\(.+\\)")) return null;
+        boolean call = core.matches("[\\p{L}_][\\p{L}\\p{N}_]*'*\\(.+\\)");
+        boolean operation = core.matches(".*\\p{L}.*") && core.matches(".*[*/^].*");
+        if (!call && !operation) return null;
         return formula(core);
     }
 
