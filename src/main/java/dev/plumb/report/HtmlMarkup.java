@@ -40,7 +40,9 @@ public final class HtmlMarkup implements Markup {
             if (i instanceof Inline.Text t) {
                 out.append(esc(t.text()));
             } else if (i instanceof Inline.Math m) {
-                out.append(printer.inlined(m.lhs(), m.rhs() == null ? null : relation(m.relation()), m.rhs()));
+                // In a box of its own that scrolls sideways when wider than the line: a closed form can be far wider than a phone.
+                out.append("<span class=\"im\">").append(printer.inlined(m.lhs(), m.rhs() == null ? null : relation(m.relation()), m.rhs()))
+                        .append("</span>");
             } else if (i instanceof Inline.Number n) {
                 out.append(number(n.text()));
             } else if (i instanceof Inline.Unit u) {
@@ -136,7 +138,8 @@ public final class HtmlMarkup implements Markup {
                 + ".eq{display:flex;align-items:center;justify-content:safe center;gap:2em;margin:0.8em 0;overflow-x:auto}.tag{color:#666}\n"
                 + ".eq.fails,.eq.undecided{color:inherit;font-weight:normal;padding-left:0.6em}.eq.fails{border-left:4px solid #b00020}"
                 + ".eq.undecided{border-left:4px solid #946200}"
-                + ".eq.derived{margin-top:-0.4em}\n"
+                + ".eq.derived{margin-top:-0.4em}.im{display:inline-block;max-width:100%;overflow-x:auto;overflow-y:hidden;"
+                + "vertical-align:middle;padding:0.15em 0}\n"
                 + "figure{margin:1.5em 0;text-align:center}figure svg{display:block;margin:0 auto;width:100%;max-width:640px;height:auto}"
                 + "figcaption{color:#555}\n.scroll{overflow-x:auto;margin:1em 0}.scroll table{margin:0}\n"
                 + ".caution{margin-top:2.5em;padding-top:0.5em;border-top:1px solid #ccc;font-size:0.85em;color:#555}\n</style>\n</head>\n<body>\n"

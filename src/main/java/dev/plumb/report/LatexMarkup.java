@@ -66,7 +66,8 @@ public final class LatexMarkup implements Markup {
             boolean afterNumber = previous instanceof Inline.Number;
             previous = i;
             if (i instanceof Inline.Text t) {
-                out.append(LatexPrinter.escape(t.text()));
+                // A path or a unit such as Pa/m may break after its slash, so that a long file name fits a narrow column.
+                out.append(LatexPrinter.escape(t.text()).replace("/", "/\\allowbreak{}"));
             } else if (i instanceof Inline.Math m) {
                 String math = "$" + printer.render(m.lhs()) + (m.rhs() == null ? "" : " " + relation(m.relation()) + " " + printer.render(m.rhs()))
                         + "$";
