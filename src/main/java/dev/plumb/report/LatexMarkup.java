@@ -265,6 +265,14 @@ public final class LatexMarkup implements Markup {
     }
 
     /**
+     * The body is a group, so that what it sets stays in it when a thesis inputs it: some emergency
+     * stretch, with which TeX breaks a paragraph holding a long file name or formula rather than let
+     * a line run into the margin.
+     */
+    private static final String OPEN = "\\begingroup\\setlength{\\emergencystretch}{3em}%\n";
+    private static final String CLOSE = "\\endgroup\n";
+
+    /**
      * Defined in the body, so that the fragment brings them along: the colours of the verdicts, and
      * {@code \\plumbfit[WIDTH]{TEXT}}, TEXT as it is or shrunk to WIDTH (the line) when wider.
      */
@@ -279,7 +287,7 @@ public final class LatexMarkup implements Markup {
         return "\\documentclass[11pt]{article}\n" + String.join("\n", PACKAGES.subList(0, 1)) + "\n\\usepackage[utf8]{inputenc}\n"
                 + "\\usepackage{lmodern}\n" + String.join("\n", PACKAGES.subList(1, PACKAGES.size())) + "\n"
                 + "\\usepackage[margin=2.5cm]{geometry}\n\\title{" + LatexPrinter.escape(title) + "}\n\\date{}\n"
-                + "\\begin{document}\n\\maketitle\n" + COLOURS + "\n" + body + "\\end{document}\n";
+                + "\\begin{document}\n\\maketitle\n" + OPEN + COLOURS + "\n" + body + CLOSE + "\\end{document}\n";
     }
 
     @Override
@@ -290,7 +298,7 @@ public final class LatexMarkup implements Markup {
         top.append("% Plot data files are read from \\plumbplotdir (empty: the current folder); define it first to read them\n")
                 .append("% from elsewhere, e.g. \\newcommand{\\plumbplotdir}{reports/}. Equations are labelled NAME:LABEL,\n")
                 .append("% e.g. \\eqref{").append(label("balance")).append("}.\n");
-        return Map.of(base + "-body.tex", top + COLOURS + "\n" + fragment);
+        return Map.of(base + "-body.tex", top + OPEN + COLOURS + "\n" + fragment + CLOSE);
     }
 
     @Override
