@@ -95,6 +95,7 @@ public final class ReportCommand implements Callable<Integer> {
                 String text = doc.render();
                 files.putAll(doc.files());
                 files.put(base + "." + markup.extension(), text.getBytes(StandardCharsets.UTF_8));
+                markup.companions(base).forEach((name, body) -> files.put(name, body.getBytes(StandardCharsets.UTF_8)));
             }
             String clash = inputAmong(out, files);
             if (clash != null) {

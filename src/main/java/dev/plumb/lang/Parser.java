@@ -19,7 +19,7 @@ public final class Parser {
 
     /** The statement keywords, in the order the language reference lists them. */
     public static final List<String> STATEMENTS = List.of("title", "param", "coord", "let", "unknown",
-            "relation", "boundary", "step", "claim", "scaling", "case", "sweep", "expect", "show", "guess");
+            "relation", "boundary", "step", "claim", "scaling", "case", "sweep", "expect", "show", "guess", "typeset");
 
     private static final Set<String> RESERVED = Set.of("if", "then", "else", "from", "to", "at", "within", "in");
 
@@ -125,6 +125,7 @@ public final class Parser {
             case "expect" -> expect(keyword);
             case "show" -> show(keyword);
             case "guess" -> guess(keyword);
+            case "typeset" -> typeset(keyword);
             default -> throw new IllegalStateException(keyword.text());
         };
     }
@@ -366,6 +367,13 @@ public final class Parser {
             if (unit == null) throw error(peek(), "expected a unit in brackets after 'in', e.g. show P(0) in [GPa]");
         }
         return new Stmt.Show(expr, unit, keyword.span().to(unit != null ? unit.span() : expr.span()));
+    }
+
+    private Stmt typeset(Token keyword) {
+        Token name = identifier("expected the name to typeset after 'typeset', e.g. typeset Rstar as \"R_\\star\"");
+        expectWord("as", "expected 'as' and the TeX in double quotes after the name, e.g. typeset " + name.text() + " as \"R_\\star\"");
+        Token tex = consume(TokenType.STRING, "expected the TeX in double quotes after 'as', e.g. typeset " + name.text() + " as \"R_\\star\"");
+        return new Stmt.Typeset(name.text(), name.span(), tex.text(), tex.span(), keyword.span().to(tex.span()));
     }
 
     private Label label() {

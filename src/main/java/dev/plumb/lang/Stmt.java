@@ -146,6 +146,12 @@ public sealed interface Stmt {
      */
     record Guess(Expr target, Expr value, Span span) implements Stmt { }
 
+    /**
+     * {@code typeset Rstar as "R_\star"}: how reports write the name {@code name}, as TeX (checked by
+     * {@link TexForm}); {@code texSpan} is the span of the quoted text, quotes included.
+     */
+    record Typeset(String name, Span nameSpan, String tex, Span texSpan, Span span) implements Stmt { }
+
     /** {@code show Q in [GPa]}; {@code unit} may be null (SI). */
     record Show(Expr expr, UnitText unit, Span span) implements Stmt { }
 }

@@ -30,6 +30,7 @@ public final class Checker {
     private final Program program;
     private final Diagnostics diagnostics;
     private final Map<String, Stmt> declarations = new LinkedHashMap<>();
+    private final Map<String, Stmt.Typeset> typesets = new LinkedHashMap<>();
     private final Map<String, Symbol.FixedParam> fixed = new HashMap<>();
     private final Set<String> evaluating = new HashSet<>();
     private final List<Check> unitChecks = new ArrayList<>();
@@ -315,12 +316,32 @@ public final class Checker {
             expect(e);
         } else if (s instanceof Stmt.Guess g) {
             guess(g);
+        } else if (s instanceof Stmt.Typeset t) {
+            typeset(t);
         } else if (s instanceof Stmt.Show sh) {
             DimForm f = inference.infer(sh.expr());
             if (sh.unit() != null) {
                 inference.mismatch(f, inference.unit(sh.unit().text(), sh.unit().span()), sh.unit().span(),
                         "cannot show " + ExprPrinter.print(sh.expr()) + " in [" + sh.unit().text() + "]: the units differ", sh.expr(), null, true);
             }
+        }
+    }
+
+    /** A typeset form names something declared (or built in), once, and is TeX every report can show. */
+    private void typeset(Stmt.Typeset t) {
+        if (!declarations.containsKey(t.name()) && Constants.lookup(t.name()).isEmpty()) {
+            inference.undefined(t.name(), t.nameSpan());
+        }
+        Stmt.Typeset first = typesets.putIfAbsent(t.name(), t);
+        if (first != null) {
+            diagnostics.error(t.nameSpan(), "'" + t.name() + "' is given a typeset form twice; the first is at line " + first.span().line());
+        }
+        dev.plumb.lang.TexForm.Problem p = dev.plumb.lang.TexForm.check(t.tex());
+        if (p != null) {
+            // The text starts one column after the opening quote.
+            Span at = Span.at(t.texSpan().line(), t.texSpan().column() + 1 + p.offset(), 1);
+            diagnostics.error(at, "the typeset form of '" + t.name() + "' is not TeX plumb can use: " + p.message(),
+                    "write it as TeX math, e.g. typeset Rstar as \"R_\\star\" or typeset rho_c as \"\\rho_{\\mathrm{c}}\"");
         }
     }
 

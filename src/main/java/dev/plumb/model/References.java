@@ -42,6 +42,8 @@ public final class References {
             collect(e.expected(), out);
         } else if (s instanceof Stmt.Show sh) {
             collect(sh.expr(), out);
+        } else if (s instanceof Stmt.Typeset t) {
+            out.add(t.name());
         } else if (s instanceof Stmt.Guess g) {
             collect(g.target(), out);
             collect(g.value(), out);

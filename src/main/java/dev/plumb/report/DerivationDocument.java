@@ -33,6 +33,7 @@ public final class DerivationDocument {
     /** The main document's text; figures the format keeps in separate files are in {@link #files()}. */
     public String render() throws IOException {
         Model model = a.model();
+        m.begin(stem(a.source().path()), typesetForms(model));
         m.heading(1, model.title());
         m.paragraph("Source: " + a.source().path() + ". Checked by plumb " + version() + ". " + summary() + ".");
         declarations(model);
@@ -48,7 +49,7 @@ public final class DerivationDocument {
         if (!a.notes().isEmpty()) {
             // The notes say what could not be done (a closed form not found, a plot not drawn) and why.
             m.heading(2, "Notes");
-            m.bullets(a.notes());
+            m.bulletList(a.notes().stream().map(this::runs).toList());
         }
         sources(model);
         m.footer("Caution: these results are estimates for checking derivations; where they could be applied to something that "
@@ -59,6 +60,27 @@ public final class DerivationDocument {
 
     public Map<String, byte[]> files() {
         return files;
+    }
+
+    /** The file's name without folders and its extension, which labels in a LaTeX report start with. */
+    private static String stem(Object path) {
+        String name = String.valueOf(path).replace('\\', '/');
+        name = name.substring(name.lastIndexOf('/') + 1);
+        return name.endsWith(".plumb") ? name.substring(0, name.length() - ".plumb".length()) : name;
+    }
+
+    /** The typeset forms the file gives its names ({@code typeset NAME as "TeX"}), in the order written. */
+    private static Map<String, String> typesetForms(Model model) {
+        Map<String, String> forms = new LinkedHashMap<>();
+        for (Stmt s : model.program().statements()) {
+            if (s instanceof Stmt.Typeset t) forms.put(t.name(), t.tex());
+        }
+        return forms;
+    }
+
+    /** Reads the formulas in a message back for typesetting, with the names this file knows. */
+    private List<Markup.Inline> runs(String message) {
+        return new MessageRuns(n -> a.model().symbols().containsKey(n)).of(message);
     }
 
     private static String version() {
@@ -76,29 +98,29 @@ public final class DerivationDocument {
         List<List<Markup.Cell>> rows = new ArrayList<>();
         for (Symbol s : model.symbols().values()) {
             String kind;
-            String detail = "";
+            Markup.Cell detail = Markup.Cell.text("");
             if (s instanceof Symbol.FreeParam p) {
                 kind = "free parameter";
-                detail = p.assumption() == null ? "" : p.assumption().text;
+                if (p.assumption() != null) detail = Markup.Cell.of(Markup.Inline.Math.of(name(s.name())),
+                        Markup.text(" " + p.assumption().text.replace(">=", "\u2265").replace(" 0", " ")), new Markup.Inline.Number("0"));
             } else if (s instanceof Symbol.FixedParam p) {
                 kind = "fixed parameter";
-                detail = "= " + fmt(p.value()) + " (SI)";
+                detail = Markup.Cell.of(Markup.text("= "), new Markup.Inline.Number(fmt(p.value())), new Markup.Inline.Unit(
+                        UnitCatalog.siName(s.dimension())), Markup.text(" (SI)"));
             } else if (s instanceof Symbol.Coordinate c) {
                 kind = "coordinate";
-                detail = "from " + dev.plumb.lang.ExprPrinter.print(c.from()) + " to " + dev.plumb.lang.ExprPrinter.print(c.to());
+                detail = Markup.Cell.of(Markup.text("from "), Markup.Inline.Math.of(c.from()), Markup.text(" to "), Markup.Inline.Math.of(c.to()));
             } else if (s instanceof Symbol.Profile p) {
                 kind = "unknown profile";
-                detail = p.unitInferred() ? "unit inferred" : "";
+                detail = Markup.Cell.text(p.unitInferred() ? "unit inferred" : "");
             } else if (s instanceof Symbol.UnknownConstant c) {
                 kind = c.endOfInterval() ? "unknown constant (free surface)" : "unknown constant";
-                detail = c.unitInferred() ? "unit inferred" : "";
-            } else if (s instanceof Symbol.Definition) {
-                continue;
+                detail = Markup.Cell.text(c.unitInferred() ? "unit inferred" : "");
             } else {
                 continue;
             }
-            rows.add(List.of(Markup.Cell.math(new Expr.Name(s.name(), dev.plumb.lang.Span.NONE)), Markup.Cell.text(kind),
-                    Markup.Cell.text(UnitCatalog.siName(s.dimension())), Markup.Cell.text(detail)));
+            rows.add(List.of(Markup.Cell.math(name(s.name())), Markup.Cell.text(kind),
+                    Markup.Cell.of(new Markup.Inline.Unit(UnitCatalog.siName(s.dimension()))), detail));
         }
         m.table(List.of("symbol", "kind", "unit (SI)", "details"), rows);
         for (Stmt s : model.program().statements()) {
@@ -106,7 +128,7 @@ public final class DerivationDocument {
                 Expr lhs = l.params().isEmpty() ? new Expr.Name(l.name(), l.nameSpan())
                         : new Expr.Call(l.name(), l.nameSpan(), 0,
                         l.params().stream().<Expr>map(p -> new Expr.Name(p, dev.plumb.lang.Span.NONE)).toList(), l.span());
-                m.equation("definition", lhs, "=", l.body());
+                m.equation(new Markup.Equation(null, "definition", lhs, "=", l.body(), null));
             }
         }
     }
@@ -114,14 +136,14 @@ public final class DerivationDocument {
     private void relations(Model model) {
         m.heading(2, "Relations and boundary conditions");
         for (Stmt.Relation r : model.relations()) {
-            m.equation(r.label().present() ? r.label().name() : null, r.equation().lhs(), "=", r.equation().rhs());
+            equation(r.label(), null, r.equation(), r.span(), false);
         }
         for (Stmt.Boundary b : model.boundaries()) {
-            m.equation(b.label().present() ? b.label().name() : "boundary", b.equation().lhs(), "=", b.equation().rhs());
+            equation(b.label(), "boundary", b.equation(), b.span(), false);
         }
         if (!model.guesses().isEmpty()) {
             m.paragraph("First guesses given for the numeric solve (they change where the search starts, not the answer):");
-            for (Stmt.Guess g : model.guesses()) m.equation("guess", g.target(), "\u2248", g.value());
+            for (Stmt.Guess g : model.guesses()) m.equation(new Markup.Equation(null, "guess", g.target(), "\u2248", g.value(), null));
         }
     }
 
@@ -133,20 +155,89 @@ public final class DerivationDocument {
         List<List<Markup.Cell>> rows = new ArrayList<>();
         for (Check c : cs) {
             rows.add(List.of(Markup.Cell.text(c.label()), Markup.Cell.text(String.valueOf(c.span().line())),
-                    Markup.Cell.text(c.status().word()), Markup.Cell.text(c.factor() == null ? "" : c.factor()),
-                    Markup.Cell.text(c.message())));
+                    Markup.Cell.of(new Markup.Inline.Verdict(c.status())), factor(c.factor()),
+                    new Markup.Cell(kind.equals("units") ? unitsMessage(c.message()) : runs(c.message()))));
         }
         m.table(List.of("label", "line", "verdict", "factor", "why"), rows);
+    }
+
+    /** A factor such as {@code 2}, {@code -1} or {@code pi}, typeset when it reads as a formula. */
+    private Markup.Cell factor(String f) {
+        if (f == null || f.isEmpty()) return Markup.Cell.text("");
+        Expr e = dev.plumb.lang.Parser.parseExpression(f);
+        return e != null ? Markup.Cell.math(e) : Markup.Cell.text(f);
+    }
+
+    /** "both sides in Pa/m (kg m^-2 s^-2)" with its units typeset; any other message as {@link #runs}. */
+    private List<Markup.Inline> unitsMessage(String message) {
+        java.util.regex.Matcher u = java.util.regex.Pattern.compile("both sides in ([^()\\[\\]]+?)(?: \\(([^()\\[\\]]+)\\))?").matcher(message);
+        if (!u.matches() || !isUnit(u.group(1)) || u.group(2) != null && !isUnit(u.group(2))) return runs(message);
+        List<Markup.Inline> out = new ArrayList<>(List.of(Markup.text("both sides in "), new Markup.Inline.Unit(u.group(1))));
+        if (u.group(2) != null) out.addAll(List.of(Markup.text(" ("), new Markup.Inline.Unit(u.group(2)), Markup.text(")")));
+        return out;
+    }
+
+    private static boolean isUnit(String text) {
+        try {
+            return text.equals("1") || dev.plumb.units.UnitParser.parse(text) != null;
+        } catch (Exception e) {
+            return false;
+        }
     }
 
     private void equationsOf(String kind) {
         for (Stmt s : a.model().program().statements()) {
             if (kind.equals("step") && s instanceof Stmt.Step st) {
-                m.equation(st.label().present() ? st.label().name() : null, st.equation().lhs(), "=", st.equation().rhs());
+                equation(st.label(), null, st.equation(), st.span(), true);
             } else if (kind.equals("claim") && s instanceof Stmt.Claim c) {
-                m.equation(c.label().present() ? c.label().name() : null, c.equation().lhs(), "=", c.equation().rhs());
+                equation(c.label(), null, c.equation(), c.span(), true);
             }
         }
+    }
+
+    /**
+     * A checked statement's equation with its verdict at it: the worst verdict of the checks on its
+     * line (always for steps and claims, otherwise only when something does not hold), and, for one
+     * that fails, the correct form plumb derived when a message of its names one for the same side.
+     */
+    private void equation(Stmt.Label label, String note, Stmt.Equation eq, dev.plumb.lang.Span span, boolean always) {
+        List<Check> own = a.checks().stream().filter(c -> c.span().line() == span.line() && c.span().line() > 0).toList();
+        Status worst = null;
+        for (Check c : own) {
+            if (worst == null || rank(c.status()) > rank(worst)) worst = c.status();
+        }
+        Markup.Mark mark = null;
+        if (worst != null && (always || worst != Status.HOLDS)) {
+            Expr correctRhs = null;
+            Expr correctLhs = null;
+            if (worst == Status.FAILS) {
+                String side = dev.plumb.lang.ExprPrinter.print(eq.lhs());
+                for (Check c : own) {
+                    for (Markup.Inline i : runs(c.message())) {
+                        if (correctRhs == null && i instanceof Markup.Inline.Math f && f.rhs() != null
+                                && dev.plumb.lang.ExprPrinter.print(f.lhs()).equals(side)) {
+                            correctLhs = f.lhs();
+                            correctRhs = f.rhs();
+                        }
+                    }
+                }
+            }
+            mark = new Markup.Mark(worst, correctLhs, correctRhs);
+        }
+        m.equation(new Markup.Equation(label.present() ? label.name() : null, label.present() ? null : note, eq.lhs(), "=", eq.rhs(), mark));
+    }
+
+    private static int rank(Status s) {
+        return switch (s) {
+            case HOLDS -> 0;
+            case NOT_EVALUATED -> 1;
+            case UNDECIDED -> 2;
+            case FAILS -> 3;
+        };
+    }
+
+    private static Expr name(String id) {
+        return new Expr.Name(id, dev.plumb.lang.Span.NONE);
     }
 
     private void derived() {
@@ -156,12 +247,30 @@ public final class DerivationDocument {
             if (d.form() != null) {
                 m.equation(null, parse(d.expr()), "=", d.form());
             } else {
-                m.paragraph(d.expr() + " = " + d.closedForm() + "  [" + d.unit() + "]");
+                List<Markup.Inline> p = new ArrayList<>(runs(d.expr() + " = " + d.closedForm()));
+                p.addAll(List.of(Markup.text(" in "), new Markup.Inline.Unit(d.unit())));
+                m.paragraph(p);
             }
             if (!d.trail().isEmpty()) {
-                m.bullets(d.trail().stream().map(t -> t.action() + ": " + t.result()).toList());
+                m.bulletList(d.trail().stream().map(t -> trailEntry(t)).toList());
             }
         }
+    }
+
+    /**
+     * One step of a trail, {@code action: LHS = RHS}, with the equation typeset: the result is an
+     * equation printed by plumb, so it reads back whole (an integration constant included).
+     */
+    private List<Markup.Inline> trailEntry(Analysis.TrailEntry t) {
+        int eq = t.result().indexOf(" = ");
+        Expr lhs = eq < 0 ? null : dev.plumb.lang.Parser.parseExpression(t.result().substring(0, eq));
+        Expr rhs = eq < 0 ? null : dev.plumb.lang.Parser.parseExpression(t.result().substring(eq + 3));
+        List<Markup.Inline> out = new ArrayList<>(runs(t.action() + ": "));
+        Expr whole = eq < 0 ? dev.plumb.lang.Parser.parseExpression(t.result()) : null;
+        if (lhs != null && rhs != null) out.add(new Markup.Inline.Math(lhs, "=", rhs));
+        else if (whole != null) out.add(Markup.Inline.Math.of(whole));
+        else out.addAll(runs(t.result()));
+        return out;
     }
 
     /** Re-reads a quantity such as {@code P(0)} for typesetting; falls back to a plain name. */
@@ -179,17 +288,27 @@ public final class DerivationDocument {
         }
         List<List<Markup.Cell>> rows = new ArrayList<>();
         for (Check c : cs) {
-            rows.add(List.of(Markup.Cell.text(c.label()), Markup.Cell.text(c.status().word()),
-                    Markup.Cell.text(exponents(c.extra().get("exponents"))), Markup.Cell.text(exponents(c.extra().get("claimed"))),
-                    Markup.Cell.text(String.valueOf(c.extra().getOrDefault("dimensional_analysis", "")))));
+            rows.add(List.of(Markup.Cell.text(c.label()), Markup.Cell.of(new Markup.Inline.Verdict(c.status())),
+                    exponents(c.extra().get("exponents")), exponents(c.extra().get("claimed")),
+                    new Markup.Cell(runs(String.valueOf(c.extra().getOrDefault("dimensional_analysis", ""))))));
         }
         if (!rows.isEmpty()) m.table(List.of("label", "verdict", "exponents found", "claimed", "dimensional analysis"), rows);
-        if (!a.scales().isEmpty()) m.bullets(a.scales());
+        if (!a.scales().isEmpty()) m.bulletList(a.scales().stream().map(this::runs).toList());
     }
 
-    private static String exponents(Object o) {
-        if (!(o instanceof Map<?, ?> map)) return "";
-        return map.entrySet().stream().map(e -> e.getKey() + " " + e.getValue()).collect(Collectors.joining(", "));
+    /** Exponents by parameter, each as the parameter and its exponent ({@code G 1, M 2, R -4}). */
+    private static Markup.Cell exponents(Object o) {
+        if (!(o instanceof Map<?, ?> map)) return Markup.Cell.text("");
+        List<Markup.Inline> out = new ArrayList<>();
+        for (Map.Entry<?, ?> e : map.entrySet()) {
+            if (!out.isEmpty()) out.add(Markup.text(", "));
+            out.add(Markup.Inline.Math.of(name(String.valueOf(e.getKey()))));
+            out.add(Markup.text(" "));
+            // Exponents found by fitting are floating point (0.9999999999999938): three decimals say what they are.
+            Object v = e.getValue();
+            out.add(new Markup.Inline.Number(v instanceof Double d ? String.format(Locale.ROOT, "%.3f", d) : String.valueOf(v)));
+        }
+        return new Markup.Cell(out);
     }
 
     private void cases() throws IOException {
@@ -197,19 +316,25 @@ public final class DerivationDocument {
         m.heading(2, "Cases: closed form beside numeric");
         for (Analysis.CaseTable t : a.cases()) {
             m.heading(3, "Case " + t.label());
-            if (t.method() != null) m.paragraph("Numeric method: " + t.method() + ".");
+            if (t.method() != null) {
+                List<Markup.Inline> p = new ArrayList<>(List.of(Markup.text("Numeric method: ")));
+                p.addAll(runs(t.method() + "."));
+                m.paragraph(p);
+            }
             if (t.failure() != null) {
-                m.paragraph("Not solved: " + t.failure());
+                List<Markup.Inline> p = new ArrayList<>(List.of(Markup.text("Not solved: ")));
+                p.addAll(runs(t.failure()));
+                m.paragraph(p);
                 continue;
             }
             List<List<Markup.Cell>> rows = new ArrayList<>();
             for (Analysis.Row r : t.rows()) {
                 double f = r.shownUnit() != null ? r.shownFactor() : 1.0;
-                rows.add(List.of(Markup.Cell.text(r.expr()), Markup.Cell.text(r.closedForm() == null ? "—" : fmt(r.closedForm() / f)),
-                        Markup.Cell.text(r.numeric() == null ? "—" : fmt(r.numeric() / f)),
-                        Markup.Cell.text(r.relDiff() == null ? "—" : String.format(Locale.ROOT, "%.1e", r.relDiff())),
-                        Markup.Cell.text(r.shownUnit() != null ? r.shownUnit() : r.unit()),
-                        Markup.Cell.text(sensitivity(r)), Markup.Cell.text(uncertainty(r))));
+                rows.add(List.of(Markup.Cell.math(parse(r.expr())), number(r.closedForm() == null ? null : fmt(r.closedForm() / f)),
+                        number(r.numeric() == null ? null : fmt(r.numeric() / f)),
+                        number(r.relDiff() == null ? null : String.format(Locale.ROOT, "%.1e", r.relDiff())),
+                        Markup.Cell.of(new Markup.Inline.Unit(r.shownUnit() != null ? r.shownUnit() : r.unit())),
+                        sensitivity(r), Markup.Cell.text(uncertainty(r))));
             }
             m.table(List.of("quantity", "closed form", "numeric", "rel. diff", "unit", "∂ln Q/∂ln p", "uncertainty"), rows);
             int i = 0;
@@ -227,31 +352,43 @@ public final class DerivationDocument {
         for (dev.plumb.numeric.Sequences.Result r : a.sweeps()) {
             var spec = r.spec();
             double pf = spec.unit() != null ? spec.factor() : 1.0;
-            String unit = r.paramUnit().equals("1") ? "" : " " + r.paramUnit();
             m.heading(3, "Sweep " + spec.label());
-            m.paragraph(String.format(Locale.ROOT, "%s from %s%s to %s%s, %d points spaced %s; %d solved. The data are in %s.",
-                    spec.param(), fmt(spec.values()[0] / pf), unit, fmt(spec.values()[spec.size() - 1] / pf), unit, spec.size(),
-                    spec.log() ? "evenly in the logarithm" : "evenly", r.solved(), SequenceData.fileName(r)));
+            m.paragraph(List.of(Markup.Inline.Math.of(name(spec.param())), Markup.text(" from "), new Markup.Inline.Number(fmt(spec.values()[0] / pf)),
+                    new Markup.Inline.Unit(r.paramUnit()), Markup.text(" to "), new Markup.Inline.Number(fmt(spec.values()[spec.size() - 1] / pf)),
+                    new Markup.Inline.Unit(r.paramUnit()), Markup.text(String.format(Locale.ROOT, ", %d points spaced %s; %d solved. The data are in %s.",
+                            spec.size(), spec.log() ? "evenly in the logarithm" : "evenly", r.solved(), SequenceData.fileName(r)))));
             List<String> header = new ArrayList<>();
+            List<Markup.Cell> headerCells = new ArrayList<>();
             header.add(spec.param() + " [" + r.paramUnit() + "]");
-            for (var c : r.columns()) header.add(c.expr() + " [" + (c.shownUnit() != null ? c.shownUnit() : c.unit()) + "]");
+            headerCells.add(headerCell(spec.param(), r.paramUnit()));
+            for (var c : r.columns()) {
+                String u = c.shownUnit() != null ? c.shownUnit() : c.unit();
+                header.add(c.expr() + " [" + u + "]");
+                headerCells.add(headerCell(c.expr(), u));
+            }
             List<List<Markup.Cell>> rows = new ArrayList<>();
             for (var p : r.points()) {
                 List<Markup.Cell> row = new ArrayList<>();
-                row.add(Markup.Cell.text(fmt(p.value() / pf)));
+                row.add(number(fmt(p.value() / pf)));
                 for (int k = 0; k < r.columns().size(); k++) {
                     double v = dev.plumb.numeric.Sequences.shown(r.columns().get(k), p.quantities()[k]);
-                    row.add(Markup.Cell.text(p.failure() != null ? (k == 0 ? "not solved: " + p.failure() : "") : Double.isFinite(v) ? fmt(v) : "—"));
+                    row.add(p.failure() != null ? (k == 0 ? new Markup.Cell(runs("not solved: " + p.failure())) : Markup.Cell.text(""))
+                            : number(Double.isFinite(v) ? fmt(v) : null));
                 }
                 rows.add(row);
             }
-            m.table(header, rows);
+            m.tabulate(headerCells, rows);
             for (var x : r.extrema()) {
                 var col = r.columns().stream().filter(c -> c.expr().equals(x.expr())).findFirst().orElseThrow();
                 String shown = col.shownUnit() != null ? col.shownUnit() : col.unit();
-                m.paragraph(String.format(Locale.ROOT, "%s of %s over %s: %s %s at %s = %s%s (%s).", x.max() ? "Maximum" : "Minimum", x.expr(),
-                        spec.label(), fmt(dev.plumb.numeric.Sequences.shown(col, x.value())), shown.equals("1") ? "" : shown, spec.param(),
-                        fmt(x.at() / pf), unit, x.how()));
+                List<Markup.Inline> p = new ArrayList<>(List.of(Markup.text((x.max() ? "Maximum" : "Minimum") + " of "),
+                        Markup.Inline.Math.of(parse(x.expr())), Markup.text(" over " + spec.label() + ": "),
+                        new Markup.Inline.Number(fmt(dev.plumb.numeric.Sequences.shown(col, x.value()))), new Markup.Inline.Unit(shown),
+                        Markup.text(" at "), Markup.Inline.Math.of(name(spec.param())), Markup.text(" = "), new Markup.Inline.Number(fmt(x.at() / pf)),
+                        new Markup.Inline.Unit(r.paramUnit()), Markup.text(" (")));
+                p.addAll(runs(x.how()));
+                p.add(Markup.text(")."));
+                m.paragraph(p);
             }
             Plot plot = FigureData.sweep(r);
             if (plot != null) {
@@ -262,9 +399,21 @@ public final class DerivationDocument {
         }
     }
 
-    private static String sensitivity(Analysis.Row r) {
-        return r.sensitivities().entrySet().stream().map(e -> e.getKey() + " " + String.format(Locale.ROOT, "%.4f", Math.abs(e.getValue()) < 5e-9 ? 0.0 : e.getValue()))
-                .collect(Collectors.joining(", "));
+    /** A number as a cell, or a dash when there is none. */
+    private static Markup.Cell number(String text) {
+        return text == null ? Markup.Cell.text("\u2014") : Markup.Cell.of(new Markup.Inline.Number(text));
+    }
+
+    /** A column heading: the quantity typeset, and its unit in brackets. */
+    private static Markup.Cell headerCell(String quantity, String unit) {
+        if (unit.equals("1")) return Markup.Cell.math(parse(quantity));
+        return Markup.Cell.of(Markup.Inline.Math.of(parse(quantity)), Markup.text(" ["), new Markup.Inline.Unit(unit), Markup.text("]"));
+    }
+
+    private static Markup.Cell sensitivity(Analysis.Row r) {
+        Map<Object, Object> rounded = new LinkedHashMap<>();
+        r.sensitivities().forEach((k, v) -> rounded.put(k, String.format(Locale.ROOT, "%.4f", Math.abs(v) < 5e-9 ? 0.0 : v)));
+        return exponents(rounded);
     }
 
     private static String uncertainty(Analysis.Row r) {
@@ -275,14 +424,15 @@ public final class DerivationDocument {
     }
 
     private void sources(Model model) {
-        List<String> items = new ArrayList<>();
+        List<List<Markup.Inline>> items = new ArrayList<>();
         for (Symbol.Builtin b : model.symbols(Symbol.Builtin.class)) {
-            items.add(b.name() + " = " + fmt(b.constant().value()) + " " + UnitCatalog.siName(b.dimension()) + " — "
-                    + b.constant().description() + "; " + b.constant().source());
+            items.add(List.of(Markup.Inline.Math.of(name(b.name())), Markup.text(" = "), new Markup.Inline.Number(fmt(b.constant().value())),
+                    new Markup.Inline.Unit(UnitCatalog.siName(b.dimension())), Markup.text(" \u2014 " + b.constant().description() + "; "
+                            + b.constant().source())));
         }
         if (items.isEmpty()) return;
         m.heading(2, "Constants and their sources");
-        m.bullets(items);
+        m.bulletList(items);
     }
 
     private static String fmt(double v) {

@@ -9,7 +9,28 @@ import java.util.stream.Collectors;
 
 /** Prints an expression as LaTeX math: fractions, powers, Greek letters and subscripts. */
 public final class LatexPrinter {
-    private LatexPrinter() {
+    private static final LatexPrinter PLAIN = new LatexPrinter(Map.of(), false);
+
+    /** The user's typeset forms ({@code typeset NAME as "TeX"}), by name; checked TeX, written as it is. */
+    private final Map<String, String> typeset;
+    /** Whether units are written for siunitx (its unit command), as in a LaTeX document, or upright by hand (Markdown's math). */
+    private final boolean siunitx;
+
+    private LatexPrinter(Map<String, String> typeset, boolean siunitx) {
+        this.typeset = typeset;
+        this.siunitx = siunitx;
+    }
+
+    /** A printer that writes each name in {@code typeset} as the TeX given for it, and units for siunitx if asked. */
+    public static LatexPrinter with(Map<String, String> typeset, boolean siunitx) {
+        return typeset.isEmpty() && !siunitx ? PLAIN : new LatexPrinter(Map.copyOf(typeset), siunitx);
+    }
+
+    /** A unit in math as this printer writes units. */
+    public String unitOf(String text) {
+        if (!siunitx) return unit(text);
+        String u = siUnit(text);
+        return u.isEmpty() ? "" : "\\," + u;
     }
 
     static final Map<String, String> GREEK = Map.ofEntries(
@@ -24,7 +45,17 @@ public final class LatexPrinter {
             Map.entry("Phi", "\\Phi"), Map.entry("Psi", "\\Psi"), Map.entry("Omega", "\\Omega"));
 
     public static String print(Expr e) {
+        return PLAIN.render(e);
+    }
+
+    public String render(Expr e) {
         return print(e, 0);
+    }
+
+    /** A name as this printer writes it: the user's typeset form if there is one. */
+    public String nameOf(String id) {
+        String t = typeset.get(id);
+        return t != null ? "{" + t + "}" : name(id);
     }
 
     /** An identifier: Greek names (rho, or ρ itself) become letters, a trailing number or {@code _suffix} a subscript. */
@@ -142,7 +173,22 @@ public final class LatexPrinter {
         if (e < 0) return text;
         String mantissa = t.substring(0, e);
         String exp = t.substring(e + 1).replaceFirst("^\\+", "");
+        if (exp.matches("-?[0-9]+")) exp = String.valueOf(Integer.parseInt(exp));
         return (mantissa.equals("1") ? "" : mantissa + "\\times ") + "10^{" + exp + "}";
+    }
+
+    /**
+     * A unit for siunitx as a literal unit ({@code kg m^-3} becomes the literal unit kg.m^{-3}); a unit
+     * with characters siunitx's literal input does not take (Greek, accents) is written upright by hand.
+     * No space before it; the dimensionless unit {@code 1} is nothing.
+     */
+    public static String siUnit(String text) {
+        String t = text.strip();
+        if (t.equals("1") || t.isEmpty()) return "";
+        String powers = t.replaceAll("\\^\\s*\\(\\s*([-+]?[0-9./ ]+?)\\s*\\)", "^{$1}").replaceAll("\\^\\s*([-+]?[0-9.]+)", "^{$1}");
+        String literal = powers.replaceAll("\\s*\\*\\s*|\\s+", ".").replaceAll("\\.?/\\.?", "/");
+        if (!literal.matches("[A-Za-z0-9./^{}()+-]+")) return unit(text).substring("\\,".length());
+        return "\\unit{" + literal + "}";
     }
 
     /** A unit as written ({@code kg m^-3}, {@code kg^(-4/3)}), upright, with its powers as superscripts. */
@@ -162,22 +208,28 @@ public final class LatexPrinter {
         return "\\,\\mathrm{" + out + "}";
     }
 
-    private static String print(Expr e, int outer) {
+    private String print(Expr e, int outer) {
         String s;
         if (e instanceof Expr.Num n) {
             s = number(n.text());
         } else if (e instanceof Expr.Quantity q) {
-            s = number(q.text()) + unit(q.unit());
+            s = number(q.text()) + unitOf(q.unit());
         } else if (e instanceof Expr.Name n) {
-            s = name(n.id());
+            s = nameOf(n.id());
         } else if (e instanceof Expr.Neg n) {
             s = "-" + print(n.operand(), 3);
         } else if (e instanceof Expr.Call c) {
             s = call(c);
         } else if (e instanceof Expr.If i) {
-            s = "\\begin{cases} " + print(i.then(), 0) + " & \\text{if } " + print(i.condition().left(), 1) + " "
-                    + compare(i.condition().op()) + " " + print(i.condition().right(), 1) + " \\\\ "
-                    + print(i.otherwise(), 0) + " & \\text{otherwise} \\end{cases}";
+            // An else-if chain is one set of cases, not cases nested in cases.
+            StringBuilder rows = new StringBuilder("\\begin{cases} ");
+            Expr rest = i;
+            while (rest instanceof Expr.If c) {
+                rows.append(print(c.then(), 0)).append(" & \\text{if } ").append(print(c.condition().left(), 1)).append(' ')
+                        .append(compare(c.condition().op())).append(' ').append(print(c.condition().right(), 1)).append(" \\\\ ");
+                rest = c.otherwise();
+            }
+            s = rows.append(print(rest, 0)).append(" & \\text{otherwise} \\end{cases}").toString();
         } else {
             Expr.Binary b = (Expr.Binary) e;
             s = switch (b.op()) {
@@ -185,16 +237,25 @@ public final class LatexPrinter {
                 case SUB -> print(b.left(), 1) + " - " + print(b.right(), 2);
                 case MUL -> print(b.left(), 2) + (needsDot(b.right()) ? " \\cdot " : "\\,") + print(b.right(), 3);
                 case DIV -> "\\frac{" + print(b.left(), 0) + "}{" + print(b.right(), 0) + "}";
-                case POW -> "{" + print(b.left(), 5) + "}^{" + print(b.right(), 0) + "}";
+                // A fraction or a quantity raised to a power is bracketed: (P/K)^n, not P over K^n.
+                case POW -> (bracketedBase(b.left()) ? "\\left(" + print(b.left(), 0) + "\\right)" : "{" + print(b.left(), 5) + "}")
+                        + "^{" + print(b.right(), 0) + "}";
             };
             if (b.op() == Expr.BinaryOp.DIV) return s;
         }
         return ExprPrinter.precedence(e) < outer ? "\\left(" + s + "\\right)" : s;
     }
 
-    private static boolean needsDot(Expr right) {
+    /** Whether a product needs a visible sign before {@code right}: a number (or a quantity) would run into what stands before it. */
+    static boolean needsDot(Expr right) {
         return right instanceof Expr.Num || right instanceof Expr.Quantity
-                || right instanceof Expr.Binary b && b.op() == Expr.BinaryOp.POW && b.left() instanceof Expr.Num;
+                || right instanceof Expr.Binary b && (b.op() == Expr.BinaryOp.POW || b.op() == Expr.BinaryOp.MUL) && needsDot(b.left());
+    }
+
+    /** A base of a power that must stand in brackets: a fraction, a quantity, or a negative number. */
+    static boolean bracketedBase(Expr base) {
+        return base instanceof Expr.Binary b && b.op() == Expr.BinaryOp.DIV || base instanceof Expr.Quantity
+                || base instanceof Expr.Num n && n.text().startsWith("-");
     }
 
     private static String compare(Expr.CompareOp op) {
@@ -206,28 +267,29 @@ public final class LatexPrinter {
         };
     }
 
-    private static String call(Expr.Call c) {
-        String args = c.args().stream().map(LatexPrinter::print).collect(Collectors.joining(", "));
+    private String call(Expr.Call c) {
+        String args = c.args().stream().map(this::render).collect(Collectors.joining(", "));
         switch (c.callee()) {
             case "sqrt":
                 return "\\sqrt{" + args + "}";
             case "exp":
-                return "\\exp\\left(" + args + "\\right)";
+                return "\\exp{\\left(" + args + "\\right)}";
             case "log": case "ln":
-                return "\\ln\\left(" + args + "\\right)";
+                return "\\ln{\\left(" + args + "\\right)}";
             case "log10":
-                return "\\log_{10}\\left(" + args + "\\right)";
+                return "\\log_{10}{\\left(" + args + "\\right)}";
             case "abs":
                 return "\\left|" + args + "\\right|";
             case "sin": case "cos": case "tan": case "sinh": case "cosh": case "tanh":
-                return "\\" + c.callee() + "\\left(" + args + "\\right)";
+                return "\\" + c.callee() + "{\\left(" + args + "\\right)}";
             case "asin": case "acos": case "atan":
-                return "\\arc" + c.callee().substring(1) + "\\left(" + args + "\\right)";
+                return "\\arc" + c.callee().substring(1) + "{\\left(" + args + "\\right)}";
             case "asinh": case "acosh": case "atanh":
                 // ISO 80000-2 writes the inverse hyperbolic functions arsinh, arcosh, artanh.
-                return "\\operatorname{ar" + c.callee().substring(1) + "}\\left(" + args + "\\right)";
+                return "\\operatorname{ar" + c.callee().substring(1) + "}{\\left(" + args + "\\right)}";
             default:
-                return name(c.callee()) + "'".repeat(c.order()) + "\\left(" + args + "\\right)";
+                // In braces the bracketed group is an ordinary atom: no thin space between m and (r).
+                return nameOf(c.callee()) + "'".repeat(c.order()) + "{\\left(" + args + "\\right)}";
         }
     }
 }

@@ -1,6 +1,6 @@
 package dev.plumb.report;
 
-import dev.plumb.lang.Expr;
+import dev.plumb.model.Status;
 import dev.plumb.lang.ExprPrinter;
 import java.util.List;
 import java.util.Map;
@@ -15,6 +15,7 @@ import java.util.Map;
  */
 public final class MarkdownMarkup implements Markup {
     private final StringBuilder out = new StringBuilder();
+    private LatexPrinter printer = LatexPrinter.with(Map.of(), false);
 
     @Override
     public void heading(int level, String text) {
@@ -22,48 +23,123 @@ public final class MarkdownMarkup implements Markup {
     }
 
     @Override
-    public void paragraph(String text) {
-        out.append(text(text)).append("\n\n");
+    public void begin(String file, Map<String, String> forms) {
+        printer = LatexPrinter.with(forms, false);
     }
 
     @Override
-    public void equation(String label, Expr lhs, String relation, Expr rhs) {
-        String rel = switch (relation) {
+    public void paragraph(List<Inline> runs) {
+        out.append(inline(runs, false)).append("\n\n");
+    }
+
+    /**
+     * Running text as Markdown, mathematics as LaTeX between dollars: the one place where text is
+     * escaped. In a table, a bar inside mathematics is escaped for the table (which, not the code
+     * span, takes the backslash away again: GitHub splits a row at every bar not escaped).
+     */
+    String inline(List<Inline> runs, boolean inTable) {
+        StringBuilder b = new StringBuilder();
+        for (int k = 0; k < runs.size(); k++) {
+            Inline i = runs.get(k);
+            boolean afterNumber = k > 0 && runs.get(k - 1) instanceof Inline.Number;
+            String math = null;
+            if (i instanceof Inline.Text t) {
+                // Blanks at the edges of a run stay: they part it from the mathematics beside it.
+                String s = t.text();
+                String lead = k > 0 && s.startsWith(" ") ? " " : "";
+                String trail = k + 1 < runs.size() && s.endsWith(" ") ? " " : "";
+                b.append(lead).append(text(s)).append(s.isBlank() ? "" : trail);
+            } else if (i instanceof Inline.Math m) {
+                math = printer.render(m.lhs()) + (m.rhs() == null ? "" : " " + relation(m.relation()) + " " + printer.render(m.rhs()));
+            } else if (i instanceof Inline.Number n) {
+                math = n.text().strip().matches("[-+]?[0-9]*\\.?[0-9]+([eE][-+]?[0-9]+)?") ? LatexPrinter.number(n.text().strip()) : null;
+                if (math == null) b.append(text(n.text()));
+            } else if (i instanceof Inline.Unit u) {
+                String unit = LatexPrinter.unit(u.unit());
+                if (!u.unit().strip().equals("1")) {
+                    math = unit.substring("\\,".length());
+                    if (afterNumber) b.append(' ');
+                }
+            } else if (i instanceof Inline.Verdict v) {
+                b.append(verdict(v.status()));
+            }
+            if (math != null) b.append(inTable ? inlineMath(math).replace("|", "\\|") : inlineMath(math));
+        }
+        return b.toString();
+    }
+
+    /** A verdict as a sign and its word (Markdown has no colour of its own). */
+    private static String verdict(Status s) {
+        return switch (s) {
+            case HOLDS -> "✓ holds";
+            case FAILS -> "✗ fails";
+            case UNDECIDED -> "? undecided";
+            case NOT_EVALUATED -> "not evaluated";
+        };
+    }
+
+    /** The same verdict inside displayed mathematics, in colour as well, for the renderers that typeset it. */
+    private static String verdictTex(Status s) {
+        String colour = switch (s) {
+            case HOLDS -> "green";
+            case FAILS -> "red";
+            case UNDECIDED -> "orange";
+            case NOT_EVALUATED -> "gray";
+        };
+        return "\\textcolor{" + colour + "}{\\text{" + verdict(s).replace("✓", "").replace("✗", "").replace("?", "").strip() + "}}";
+    }
+
+    private static String relation(String r) {
+        if (r == null) return "=";
+        return switch (r) {
             case "~" -> "\\propto";
             case "≈" -> "\\approx";
-            default -> relation;
+            default -> r;
         };
-        StringBuilder tex = new StringBuilder();
-        tex.append("% plumb: ").append(oneLine(ExprPrinter.print(lhs) + (rhs == null ? "" : " " + relation + " " + ExprPrinter.print(rhs))))
-                .append('\n');
-        tex.append(LatexPrinter.print(lhs)).append(rhs == null ? "" : " " + rel + " " + LatexPrinter.print(rhs));
-        if (label != null) tex.append(" \\qquad \\text{(").append(label.replace("_", "\\_")).append(")}");
-        out.append(displayMath(tex.toString())).append('\n');
     }
 
     @Override
-    public void table(List<String> header, List<List<Cell>> rows) {
+    public void equation(Equation e) {
+        StringBuilder tex = new StringBuilder();
+        tex.append("% plumb: ").append(oneLine(ExprPrinter.print(e.lhs()) + (e.rhs() == null ? "" : " " + e.relation() + " "
+                + ExprPrinter.print(e.rhs())))).append('\n');
+        tex.append(printer.render(e.lhs())).append(e.rhs() == null ? "" : " " + relation(e.relation()) + " " + printer.render(e.rhs()));
+        String tag = e.label() != null ? e.label() : e.note();
+        if (tag != null || e.mark() != null) {
+            tex.append(" \\qquad ");
+            if (tag != null) tex.append("\\text{(").append(tag.replace("_", "\\_")).append(")}");
+            if (e.mark() != null) tex.append("\\; ").append(verdictTex(e.mark().status()));
+        }
+        out.append(displayMath(tex.toString())).append('\n');
+        if (e.mark() != null && e.mark().status() != Status.HOLDS) {
+            // The verdict in words too, for a reader of the plain text or a renderer without mathematics.
+            out.append(text((tag == null ? "The equation above " : tag + ": ") + verdict(e.mark().status()))).append("\n\n");
+        }
+        if (e.mark() != null && e.mark().correctLhs() != null) {
+            String lhs = ExprPrinter.print(e.mark().correctLhs()), rhs = ExprPrinter.print(e.mark().correctRhs());
+            out.append(displayMath("% plumb: " + oneLine(lhs + " = " + rhs) + "\n\\text{derived by plumb:}\\quad "
+                    + printer.render(e.mark().correctLhs()) + " = " + printer.render(e.mark().correctRhs()))).append('\n');
+        }
+    }
+
+    @Override
+    public void tabulate(List<Cell> header, List<List<Cell>> rows) {
         out.append('|');
-        header.forEach(h -> out.append(' ').append(text(h)).append(" |"));
+        header.forEach(h -> out.append(' ').append(inline(h.runs(), true)).append(" |"));
         out.append("\n|");
         header.forEach(h -> out.append("---|"));
         out.append('\n');
         for (List<Cell> row : rows) {
             out.append('|');
-            for (Cell c : row) {
-                // GitHub's tables split a row at every '|' not escaped, inside code spans too (where the
-                // table, not the code span, takes the backslash away again).
-                out.append(' ').append(c.math() != null ? inlineMath(LatexPrinter.print(c.math())).replace("|", "\\|") : text(c.text()))
-                        .append(" |");
-            }
+            for (Cell c : row) out.append(' ').append(inline(c.runs(), true)).append(" |");
             out.append('\n');
         }
         out.append('\n');
     }
 
     @Override
-    public void bullets(List<String> items) {
-        items.forEach(i -> out.append("- ").append(text(i)).append('\n'));
+    public void bulletList(List<List<Inline>> items) {
+        items.forEach(i -> out.append("- ").append(inline(i, false)).append('\n'));
         out.append('\n');
     }
 

@@ -9,7 +9,18 @@ import java.util.stream.Collectors;
 
 /** Prints an expression as presentation MathML, for self-contained HTML reports. */
 public final class MathMLPrinter {
-    private MathMLPrinter() {
+    private static final MathMLPrinter PLAIN = new MathMLPrinter(Map.of());
+
+    /** The user's typeset forms ({@code typeset NAME as "TeX"}), by name, as TeX. */
+    private final Map<String, String> typeset;
+
+    private MathMLPrinter(Map<String, String> typeset) {
+        this.typeset = typeset;
+    }
+
+    /** A printer that writes each name in {@code typeset} from the TeX given for it. */
+    public static MathMLPrinter with(Map<String, String> typeset) {
+        return typeset.isEmpty() ? PLAIN : new MathMLPrinter(Map.copyOf(typeset));
     }
 
     private static final Map<String, String> GREEK = Map.ofEntries(
@@ -24,16 +35,38 @@ public final class MathMLPrinter {
 
     /** A whole {@code <math>} element for an equation {@code lhs = rhs} (rhs may be null). */
     public static String equation(Expr lhs, String relation, Expr rhs) {
-        return "<math display=\"block\"><mrow>" + print(lhs) + (rhs == null ? "" : "<mo>" + esc(relation) + "</mo>" + print(rhs))
-                + "</mrow></math>";
+        return PLAIN.displayed(lhs, relation, rhs);
     }
 
     public static String inline(Expr e) {
-        return "<math><mrow>" + print(e) + "</mrow></math>";
+        return PLAIN.inlined(e, null, null);
     }
 
     public static String print(Expr e) {
+        return PLAIN.render(e);
+    }
+
+    /** A whole displayed {@code <math>} element for {@code lhs REL rhs} (rhs may be null). */
+    public String displayed(Expr lhs, String relation, Expr rhs) {
+        return "<math display=\"block\"><mrow>" + render(lhs) + (rhs == null ? "" : "<mo>" + esc(relation) + "</mo>" + render(rhs))
+                + "</mrow></math>";
+    }
+
+    /** An inline {@code <math>} element for {@code lhs REL rhs} (relation and rhs may be null). */
+    public String inlined(Expr lhs, String relation, Expr rhs) {
+        return "<math><mrow>" + render(lhs) + (rhs == null ? "" : "<mo>" + esc(relation) + "</mo>" + render(rhs)) + "</mrow></math>";
+    }
+
+    public String render(Expr e) {
         return print(e, 0);
+    }
+
+    /** A name as this printer writes it: the user's typeset form if there is one. */
+    public String nameOf(String id) {
+        String t = typeset.get(id);
+        if (t == null) return name(id);
+        String m = TexToMathML.convert(t);
+        return m != null ? m : name(id);
     }
 
     static String esc(String s) {
@@ -51,49 +84,97 @@ public final class MathMLPrinter {
         return "<msub>" + b + s + "</msub>";
     }
 
+    /** A unit as written ({@code kg m^-3}), upright, its powers as superscripts; nothing for the dimensionless {@code 1}. */
+    public static String unit(String text) {
+        String t = text.strip();
+        if (t.equals("1") || t.isEmpty()) return "";
+        StringBuilder out = new StringBuilder("<mspace width=\"0.2em\"/>");
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("([^\\s*^/()]+)(?:\\^\\s*(\\(\\s*[-+]?[0-9./ ]+\\)|[-+]?[0-9.]+))?|([/()])").matcher(t);
+        boolean first = true;
+        while (m.find()) {
+            if (m.group(3) != null) {
+                out.append("<mo lspace=\"0\" rspace=\"0\">").append(esc(m.group(3))).append("</mo>");
+                first = true;
+                continue;
+            }
+            if (!first) out.append("<mo>&#x2062;</mo><mspace width=\"0.15em\"/>");
+            first = false;
+            String u = "<mi mathvariant=\"normal\">" + esc(m.group(1)) + "</mi>";
+            if (m.group(2) == null) {
+                out.append(u);
+            } else {
+                String p = m.group(2).replaceAll("[()\\s]", "");
+                String power = p.startsWith("-") ? "<mrow><mo>−</mo><mn>" + esc(p.substring(1)) + "</mn></mrow>" : "<mn>" + esc(p) + "</mn>";
+                out.append("<msup>").append(u).append(power).append("</msup>");
+            }
+        }
+        return out.toString();
+    }
+
     static String number(String text) {
         String t = text.toLowerCase(Locale.ROOT);
         int e = t.indexOf('e');
         if (e < 0) return "<mn>" + esc(text) + "</mn>";
         String mantissa = t.substring(0, e);
         String exp = t.substring(e + 1).replaceFirst("^\\+", "");
-        return "<mrow><mn>" + esc(mantissa) + "</mn><mo>×</mo><msup><mn>10</mn><mn>" + esc(exp) + "</mn></msup></mrow>";
+        if (exp.matches("-?[0-9]+")) exp = String.valueOf(Integer.parseInt(exp));
+        String power = exp.startsWith("-") ? "<mrow><mo>−</mo><mn>" + esc(exp.substring(1)) + "</mn></mrow>" : "<mn>" + esc(exp) + "</mn>";
+        return "<mrow>" + (mantissa.equals("1") ? "" : "<mn>" + esc(mantissa) + "</mn><mo>×</mo>") + "<msup><mn>10</mn>" + power
+                + "</msup></mrow>";
     }
 
-    private static String print(Expr e, int outer) {
+    private String print(Expr e, int outer) {
         String s;
         if (e instanceof Expr.Num n) {
             s = number(n.text());
         } else if (e instanceof Expr.Quantity q) {
-            s = "<mrow>" + number(q.text()) + "<mspace width=\"0.2em\"/><mi mathvariant=\"normal\">" + esc(q.unit()) + "</mi></mrow>";
+            s = "<mrow>" + number(q.text()) + unit(q.unit()) + "</mrow>";
         } else if (e instanceof Expr.Name n) {
-            s = name(n.id());
+            s = nameOf(n.id());
         } else if (e instanceof Expr.Neg n) {
             s = "<mrow><mo>−</mo>" + print(n.operand(), 3) + "</mrow>";
         } else if (e instanceof Expr.Call c) {
             s = call(c);
         } else if (e instanceof Expr.If i) {
-            s = "<mrow><mo>{</mo><mtable><mtr><mtd>" + print(i.then(), 0) + "</mtd><mtd><mtext>if </mtext>"
-                    + print(i.condition().left(), 1) + "<mo>" + esc(i.condition().op().symbol) + "</mo>"
-                    + print(i.condition().right(), 1) + "</mtd></mtr><mtr><mtd>" + print(i.otherwise(), 0)
-                    + "</mtd><mtd><mtext>otherwise</mtext></mtd></mtr></mtable></mrow>";
+            // An else-if chain is one set of cases, not cases nested in cases.
+            StringBuilder rows = new StringBuilder("<mrow><mo>{</mo><mtable columnalign=\"left\">");
+            Expr rest = i;
+            while (rest instanceof Expr.If c) {
+                rows.append("<mtr><mtd>").append(print(c.then(), 0)).append("</mtd><mtd><mtext>if</mtext><mspace width=\"0.5em\"/>")
+                        .append(print(c.condition().left(), 1)).append("<mo>").append(esc(compare(c.condition().op()))).append("</mo>")
+                        .append(print(c.condition().right(), 1)).append("</mtd></mtr>");
+                rest = c.otherwise();
+            }
+            s = rows.append("<mtr><mtd>").append(print(rest, 0)).append("</mtd><mtd><mtext>otherwise</mtext></mtd></mtr></mtable></mrow>")
+                    .toString();
         } else {
             Expr.Binary b = (Expr.Binary) e;
             s = switch (b.op()) {
                 case ADD -> "<mrow>" + print(b.left(), 1) + "<mo>+</mo>" + print(b.right(), 2) + "</mrow>";
                 case SUB -> "<mrow>" + print(b.left(), 1) + "<mo>−</mo>" + print(b.right(), 2) + "</mrow>";
-                case MUL -> "<mrow>" + print(b.left(), 2) + "<mo>" + (b.right() instanceof Expr.Num ? "·" : "&#x2062;") + "</mo>"
+                case MUL -> "<mrow>" + print(b.left(), 2) + "<mo>" + (LatexPrinter.needsDot(b.right()) ? "·" : "&#x2062;") + "</mo>"
                         + print(b.right(), 3) + "</mrow>";
                 case DIV -> "<mfrac>" + print(b.left(), 0) + print(b.right(), 0) + "</mfrac>";
-                case POW -> "<msup>" + print(b.left(), 5) + print(b.right(), 0) + "</msup>";
+                // A fraction or a quantity raised to a power is bracketed: (P/K)^n.
+                case POW -> "<msup>" + (LatexPrinter.bracketedBase(b.left()) ? "<mrow><mo>(</mo>" + print(b.left(), 0) + "<mo>)</mo></mrow>"
+                        : print(b.left(), 5)) + print(b.right(), 0) + "</msup>";
             };
             if (b.op() == Expr.BinaryOp.DIV) return s;
         }
         return ExprPrinter.precedence(e) < outer ? "<mrow><mo>(</mo>" + s + "<mo>)</mo></mrow>" : s;
     }
 
-    private static String call(Expr.Call c) {
-        String args = c.args().stream().map(MathMLPrinter::print).collect(Collectors.joining("<mo>,</mo>"));
+    private static String compare(Expr.CompareOp op) {
+        return switch (op) {
+            case LT -> "<";
+            case LE -> "\u2264";
+            case GT -> ">";
+            case GE -> "\u2265";
+        };
+    }
+
+    private String call(Expr.Call c) {
+        String args = c.args().stream().map(this::render).collect(Collectors.joining("<mo>,</mo>"));
         if (c.callee().equals("sqrt")) return "<msqrt>" + args + "</msqrt>";
         if (c.callee().equals("abs")) return "<mrow><mo>|</mo>" + args + "<mo>|</mo></mrow>";
         String f = switch (c.callee()) {
@@ -101,8 +182,10 @@ public final class MathMLPrinter {
             // ISO 80000-2 writes the inverse hyperbolic functions arsinh, arcosh, artanh.
             case "asinh", "acosh", "atanh" -> "<mi>ar" + c.callee().substring(1) + "</mi>";
             case "exp", "log10", "sin", "cos", "tan", "asin", "acos", "atan", "sinh", "cosh", "tanh" -> "<mi>" + c.callee() + "</mi>";
-            default -> name(c.callee()) + (c.order() > 0 ? "<mo>" + "′".repeat(c.order()) + "</mo>" : "");
+            default -> nameOf(c.callee()) + (c.order() > 0 ? "<mo lspace=\"0\" rspace=\"0\">" + "′".repeat(c.order()) + "</mo>" : "");
         };
-        return "<mrow>" + f + "<mo>(</mo>" + args + "<mo>)</mo></mrow>";
+        // The invisible function application keeps the brackets at the name: m(r), not m (r).
+        return "<mrow>" + f + "<mo>&#x2061;</mo><mo form=\"prefix\" stretchy=\"false\">(</mo>" + args
+                + "<mo form=\"postfix\" stretchy=\"false\">)</mo></mrow>";
     }
 }

@@ -48,7 +48,10 @@ public record Ticks(double min, double max, List<Double> ticks, List<Label> labe
      */
     public static Ticks linear(double lo, double hi, int target, boolean loose) {
         if (!(lo <= hi) || !Double.isFinite(lo) || !Double.isFinite(hi)) throw new IllegalArgumentException(lo + " .. " + hi);
-        if (lo == hi) {
+        if (hi - lo <= 1e-9 * Math.max(Math.abs(lo), Math.abs(hi))) {
+            // Values equal but for rounding (a quantity that does not change along a sweep) make a flat line, not
+            // ticks in the fifteenth digit, whose labels run off the page.
+            lo = hi = (lo + hi) / 2;
             double pad = lo == 0 ? 1 : Math.abs(lo) * 0.1;
             lo -= pad;
             hi += pad;

@@ -170,6 +170,16 @@ class BadInputCatalogueTest {
         t.add(new Entry("a directory", Input.DIRECTORY, List.of(), 2, null, "directory"));
         t.add(new Entry("a file that does not exist", Input.MISSING, List.of(), 2, null, "no such file"));
         t.add(new Entry("an unreadable file", Input.UNREADABLE, List.of(), 2, null, "permission denied"));
+        // typeset NAME as "TeX": the name must be declared, the TeX one every report can show.
+        // typeset Mstar as "M_\star"  -- the name starts at column 9
+        t.add(text("typeset form of an undeclared name", SPHERE + "typeset Mstar as \"M_\\star\"\n", 2, 11, 9, "'Mstar' is not defined"));
+        // typeset M as "M_{\odot"  -- the quote is at column 14, the unclosed '{' at column 17
+        t.add(text("typeset form with an unclosed brace", SPHERE + "typeset M as \"M_{\\odot\"\n", 2, 11, 17, "braces are unbalanced"));
+        // typeset M as "\input{x}"  -- the backslash is at column 15
+        t.add(text("typeset form with a command beyond the checked set", SPHERE + "typeset M as \"\\input{x}\"\n", 2, 11, 15,
+                "is not a command a typeset form may use"));
+        // typeset M "M_0"  -- 'as' is missing where the string starts, column 11
+        t.add(text("typeset form without 'as'", SPHERE + "typeset M \"M_0\"\n", 2, 11, 11, "expected 'as'"));
         return t.stream();
     }
 

@@ -126,9 +126,10 @@ class FileUnitsEchoTest {
                 new java.io.PrintWriter(new java.io.StringWriter()), new java.io.PrintWriter(new java.io.StringWriter()));
         assertEquals(0, status);
         String md = Files.readString(dir.resolve("kestra-cgs-units.md"));
-        List<String> rows = md.lines().filter(l -> l.startsWith("| P(0)")).toList();
+        // The quantity and its unit are typeset: LaTeX between dollars.
+        List<String> rows = md.lines().filter(l -> l.startsWith("| $`P{\\left(0\\right)}`$ |")).toList();
         assertEquals(2, rows.size(), md);
-        assertTrue(rows.get(0).contains("dyn/cm^2") && rows.get(1).contains("Mbar"), rows::toString);
+        assertTrue(rows.get(0).contains("dyn/cm^{2}") && rows.get(1).contains("Mbar"), rows::toString);
     }
 
     @Test

@@ -204,7 +204,8 @@ class SequencesTest {
         }
         String md = Files.readString(out.resolve("line.md"));
         assertTrue(md.contains("### Sweep s"), md);
-        assertTrue(md.contains("| x [km] | f [m] | x^2 [km^2] |"), md);
+        // Each heading is the quantity and the file's unit for it, typeset (LaTeX between dollars).
+        assertTrue(md.contains("| $`x`$ \\[$`\\mathrm{km}`$] | $`f`$ \\[$`\\mathrm{m}`$] | $`{x}^{2}`$ \\[$`\\mathrm{km^{2}}`$] |"), md);
         assertTrue(Files.exists(out.resolve("sweep-s.svg")));
     }
 }

@@ -20,6 +20,21 @@ class StatementParserTest {
     }
 
     @Test
+    void typesetGivesANameItsTexAsWritten() {
+        Stmt.Typeset t = Parsing.only("typeset Rstar as \"R_\\star\"", Stmt.Typeset.class);
+        assertEquals("Rstar", t.name());
+        assertEquals("R_\\star", t.tex());
+        assertEquals(new Span(1, 9, 1, 14), t.nameSpan());
+        // Columns counted by hand: the quoted TeX runs from column 18 to 26.
+        assertEquals(new Span(1, 18, 1, 27), t.texSpan());
+        assertNull(TexForm.check(t.tex()));
+        assertEquals(2, TexForm.check("R_{\\star").offset(), "the unclosed brace");
+        assertEquals(0, TexForm.check("\\write18{x}").offset(), "a command outside the checked set");
+        assertEquals(1, TexForm.check("R_").offset(), "a subscript of nothing");
+        assertEquals(1, TexForm.check("R$").offset(), "a character that would leave math");
+    }
+
+    @Test
     void paramWithUnitAndPositiveAssumption() {
         Stmt.Param p = Parsing.only("param M [kg] > 0", Stmt.Param.class);
         assertEquals("M", p.name());
