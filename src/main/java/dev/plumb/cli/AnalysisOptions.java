@@ -1,5 +1,6 @@
 package dev.plumb.cli;
 
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.symbolic.SymbolicEngine;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;

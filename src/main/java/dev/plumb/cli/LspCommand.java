@@ -1,5 +1,6 @@
 package dev.plumb.cli;
 
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.lsp.PlumbLanguageServer;
 import java.io.FileDescriptor;
 import java.io.FileOutputStream;

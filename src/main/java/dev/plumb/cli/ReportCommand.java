@@ -1,5 +1,6 @@
 package dev.plumb.cli;
 
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.report.Analysis;
 import dev.plumb.report.CaseData;
 import dev.plumb.report.DerivationDocument;

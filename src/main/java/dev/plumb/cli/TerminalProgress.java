@@ -1,5 +1,6 @@
 package dev.plumb.cli;
 
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.model.Check;
 import dev.plumb.model.Model;
 import dev.plumb.report.Style;

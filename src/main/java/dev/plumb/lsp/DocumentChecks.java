@@ -1,6 +1,6 @@
 package dev.plumb.lsp;
 
-import dev.plumb.cli.Analyzer;
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.lang.SourceFile;
 import dev.plumb.report.Analysis;
 import java.util.List;

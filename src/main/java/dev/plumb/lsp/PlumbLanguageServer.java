@@ -1,6 +1,6 @@
 package dev.plumb.lsp;
 
-import dev.plumb.cli.Analyzer;
+import dev.plumb.pipeline.Analyzer;
 import java.io.InputStream;
 import java.io.OutputStream;
 import java.util.concurrent.CompletableFuture;

@@ -1,5 +1,6 @@
 package dev.plumb.cli;
 
+import dev.plumb.pipeline.Analyzer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -5,7 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.plumb.cli.Analyzer;
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.lang.SourceFile;
 import dev.plumb.model.Check;
 import dev.plumb.model.Status;

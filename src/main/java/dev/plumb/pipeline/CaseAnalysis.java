@@ -1,4 +1,4 @@
-package dev.plumb.cli;
+package dev.plumb.pipeline;
 
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
