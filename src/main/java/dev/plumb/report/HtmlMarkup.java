@@ -135,7 +135,7 @@ public final class HtmlMarkup implements Markup {
                 + "<style>\nbody{font-family:Georgia,serif;max-width:52em;margin:2em auto;padding:0 1em;line-height:1.45;color:#222;overflow-wrap:break-word}\n"
                 + "table{border-collapse:collapse;margin:1em 0;font-size:0.92em}th,td{border-bottom:1px solid #ccc;padding:0.3em 0.7em;text-align:left}\n"
                 + "th{border-bottom:2px solid #444}.holds{color:#17702a}.fails{color:#b00020;font-weight:bold}.undecided{color:#946200}.notevaluated{color:#555}\n"
-                + ".eq{display:flex;align-items:center;justify-content:safe center;gap:2em;margin:0.8em 0;overflow-x:auto}.tag{color:#666}\n"
+                + ".eq{display:flex;align-items:center;justify-content:safe center;gap:2em;margin:0.8em 0;overflow-x:auto;overflow-y:hidden;padding:0.15em 0}.tag{color:#666}\n"
                 + ".eq.fails,.eq.undecided,.eq.holds,.eq.notevaluated{color:inherit;font-weight:normal;padding-left:0.6em}.eq.fails{border-left:4px solid #b00020}"
                 + ".eq.undecided{border-left:4px solid #946200}"
                 + ".eq.derived{margin-top:-0.4em}.im{display:inline-block;max-width:100%;overflow-x:auto;overflow-y:hidden;"
