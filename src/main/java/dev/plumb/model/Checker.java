@@ -8,7 +8,6 @@ import dev.plumb.lang.Span;
 import dev.plumb.lang.Stmt;
 import dev.plumb.units.Constants;
 import dev.plumb.units.Dimension;
-import dev.plumb.units.UnitCatalog;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.HashMap;
@@ -23,7 +22,8 @@ import java.util.Set;
 /**
  * Turns a parsed program into a checked {@link Model}: resolves every name, finds duplicate
  * declarations and labels and definition cycles, infers and checks the units of every line,
- * and evaluates fixed parameters and case values in SI.
+ * and evaluates fixed parameters and case values in SI. Cases are checked by {@link CaseChecker},
+ * sweeps by {@link SweepChecker}, and the symbols are made by {@link DeclaredSymbols}.
  */
 public final class Checker {
 
@@ -61,12 +61,14 @@ public final class Checker {
         checkDeclarations();
         for (Stmt s : program.statements()) statement(s);
         describeHeldUnits();
-        List<CaseValues> cases = cases();
-        if (!diagnostics.hasErrors()) checkCaseAssumptions(cases);
+        CaseChecker caseChecker = new CaseChecker(program, declarations, inference, diagnostics, this::constantSymbol);
+        List<CaseValues> cases = caseChecker.cases();
+        if (!diagnostics.hasErrors()) caseChecker.checkCaseAssumptions(cases);
         List<SweepSpec> sweeps = new SweepChecker(program, declarations, inference, diagnostics, this::constantSymbol).sweeps();
-        checkExpectCases();
-        Map<String, Symbol> symbols = symbols();
-        reportInferredUnits(symbols);
+        caseChecker.checkExpectCases();
+        DeclaredSymbols declared = new DeclaredSymbols(program, declarations, inference, diagnostics, coord, this::fixedParam);
+        Map<String, Symbol> symbols = declared.symbols();
+        declared.reportInferredUnits(symbols);
         Map<Expr, Dimension> dims = new IdentityHashMap<>();
         inference.forms.forEach((e, f) -> dims.put(e, inference.solver.known(f).orElse(Dimension.NONE)));
         Optional<Symbol.Coordinate> coordinate = coord == null ? Optional.empty()
@@ -76,7 +78,7 @@ public final class Checker {
             IntervalPoints.check(symbols, coordinate.orElse(null), cases, program.statements(), hasFree, diagnostics);
         }
         String title = program.all(Stmt.Title.class).stream().map(Stmt.Title::text).findFirst().orElse(program.source().path());
-        Orientation sides = new Orientation(unknownNames());
+        Orientation sides = new Orientation(declared.unknownNames());
         return new Model(program, title, Collections.unmodifiableMap(symbols), coordinate,
                 program.all(Stmt.Relation.class), sides.boundaries(program.all(Stmt.Boundary.class)),
                 sides.steps(program.all(Stmt.Step.class)), sides.claims(program.all(Stmt.Claim.class)),
@@ -269,35 +271,6 @@ public final class Checker {
                 "'" + p.name() + " " + b.text() + "' compares quantities of different units", b.value(), null, true);
     }
 
-    /** Each case's values keep the sign and order the declarations assume (M = -1 for M > 0 is an error). */
-    private void checkCaseAssumptions(List<CaseValues> cases) {
-        for (CaseValues c : cases) {
-            ConstantEvaluator values = new ConstantEvaluator(this::constantSymbol, c.values());
-            Stmt.Case statement = program.all(Stmt.Case.class).stream().filter(k -> k.label().name().equals(c.label())).findFirst().orElse(null);
-            if (statement == null) continue;
-            for (Stmt.Assignment a : statement.assignments()) {
-                if (!(declarations.get(a.name()) instanceof Stmt.Param p) || p.value() != null) continue;
-                double v = c.values().get(a.name());
-                if (p.assumption() == Stmt.Assumption.POSITIVE && !(v > 0) || p.assumption() == Stmt.Assumption.NON_NEGATIVE && !(v >= 0)) {
-                    diagnostics.error(a.value().span(), "case '" + c.label() + "' gives " + a.name() + " = " + ExprPrinter.print(a.value())
-                            + ", but '" + a.name() + "' is declared " + p.assumption().text);
-                }
-                for (Stmt.Bound b : p.bounds()) {
-                    try {
-                        double other = values.evaluate(b.value());
-                        if (!b.op().test(v, other)) {
-                            diagnostics.error(a.value().span(), "case '" + c.label() + "' gives " + a.name() + " = " + ExprPrinter.print(a.value())
-                                    + ", which breaks '" + a.name() + " " + b.text() + "' (" + ExprPrinter.print(b.value()) + " = "
-                                    + String.format("%.6g", other) + " in SI)");
-                        }
-                    } catch (ConstantEvaluator.NotConstant unknownHere) {
-                        // Reported with the declaration.
-                    }
-                }
-            }
-        }
-    }
-
     // ---- statements --------------------------------------------------------------------------
 
     private void statement(Stmt s) {
@@ -412,157 +385,7 @@ public final class Checker {
         sides("guess", Stmt.Label.NONE, g.span(), new Stmt.Equation(g.target(), g.value(), g.span()));
     }
 
-    private static String labelOf(Stmt.Label l, Span span) {
+    static String labelOf(Stmt.Label l, Span span) {
         return l.present() ? l.name() : "line " + span.line();
-    }
-
-    // ---- cases -------------------------------------------------------------------------------
-
-    private List<CaseValues> cases() {
-        List<String> free = declarations.values().stream()
-                .filter(s -> s instanceof Stmt.Param p && p.value() == null).map(s -> ((Stmt.Param) s).name()).toList();
-        List<CaseValues> out = new ArrayList<>();
-        ConstantEvaluator evaluator = new ConstantEvaluator(this::constantSymbol, Map.of());
-        for (Stmt.Case c : program.all(Stmt.Case.class)) {
-            Map<String, Double> values = new LinkedHashMap<>();
-            Map<String, Double> sigmas = new LinkedHashMap<>();
-            boolean ok = true;
-            for (Stmt.Assignment a : c.assignments()) {
-                Stmt decl = declarations.get(a.name());
-                if (!(decl instanceof Stmt.Param p) || p.value() != null) {
-                    String why = decl instanceof Stmt.Param ? "is fixed by its declaration" : decl == null ? "is not declared" : "is not a parameter";
-                    diagnostics.error(a.nameSpan(), "case '" + c.label().name() + "' sets '" + a.name() + "', which " + why,
-                            "a case gives values to free parameters (" + String.join(", ", free) + ")");
-                    ok = false;
-                    continue;
-                }
-                if (values.containsKey(a.name())) {
-                    diagnostics.error(a.nameSpan(), "case '" + c.label().name() + "' sets '" + a.name() + "' twice");
-                    ok = false;
-                    continue;
-                }
-                DimForm want = inference.symbolForm(a.name());
-                ok &= !inference.mismatch(inference.infer(a.value()), want, a.value().span(),
-                        "the value of '" + a.name() + "' does not have its unit", a.value(), null, true);
-                ok &= value(evaluator, a.value(), a.name(), values);
-                if (a.uncertainty() != null) {
-                    ok &= !inference.mismatch(inference.infer(a.uncertainty()), want, a.uncertainty().span(),
-                            "the uncertainty of '" + a.name() + "' does not have its unit", a.uncertainty(), null, true);
-                    ok &= value(evaluator, a.uncertainty(), a.name(), sigmas);
-                }
-            }
-            List<String> missing = free.stream().filter(n -> !values.containsKey(n)).toList();
-            if (!missing.isEmpty() && ok) {
-                diagnostics.error(c.label().span(), "case '" + c.label().name() + "' gives no value for " + String.join(", ", missing));
-                ok = false;
-            }
-            if (ok) out.add(new CaseValues(c.label().name(), c.span(), values, sigmas));
-        }
-        return out;
-    }
-
-    private boolean value(ConstantEvaluator evaluator, Expr e, String name, Map<String, Double> into) {
-        try {
-            double v = evaluator.evaluate(e);
-            if (!Double.isFinite(v)) {
-                diagnostics.error(e.span(), "the value of '" + name + "' is not a finite number in SI units (it overflows, or divides by zero)");
-                return false;
-            }
-            into.put(name, v);
-            return true;
-        } catch (ConstantEvaluator.NotConstant ex) {
-            diagnostics.error(ex.where.span(), "a case value must be a fixed number: " + ex.getMessage());
-            return false;
-        }
-    }
-
-    private void checkExpectCases() {
-        boolean hasFree = declarations.values().stream().anyMatch(s -> s instanceof Stmt.Param p && p.value() == null);
-        Set<String> caseNames = new HashSet<>();
-        program.all(Stmt.Case.class).forEach(c -> caseNames.add(c.label().name()));
-        Set<String> sweepNames = new HashSet<>();
-        program.all(Stmt.Sweep.class).forEach(s -> sweepNames.add(s.label().name()));
-        for (Stmt.Expect e : program.all(Stmt.Expect.class)) {
-            if (e.extremum() != null) {
-                if (!sweepNames.contains(e.extremum().sweep())) {
-                    diagnostics.error(e.extremum().sweepSpan(), "there is no sweep named '" + e.extremum().sweep() + "'"
-                            + dev.plumb.lang.Names.closest(e.extremum().sweep(), sweepNames).map(s -> "; did you mean '" + s + "'?")
-                            .orElse(sweepNames.isEmpty() ? "; declare one, e.g. sweep " + e.extremum().sweep() + ": M from 1 [Msun] to 2 [Msun] log 20" : ""));
-                }
-                continue;
-            }
-            if (e.caseName() == null && hasFree) {
-                diagnostics.error(e.lhs().span(), "this expectation needs 'at CASE': the file has free parameters",
-                        "e.g. expect " + labelOf(e.label(), e.span()) + ": " + ExprPrinter.print(e.lhs()) + " at "
-                                + (caseNames.isEmpty() ? "sun" : caseNames.iterator().next()) + " = ...");
-            } else if (e.caseName() != null && !caseNames.contains(e.caseName())
-                    && !(e.caseName().equals(CaseValues.IMPLICIT) && !hasFree && caseNames.isEmpty())) {
-                if (!hasFree && caseNames.isEmpty()) {
-                    diagnostics.error(e.caseSpan(), "there is no case named '" + e.caseName() + "': the file has no free parameters, "
-                            + "so its one case is '" + CaseValues.IMPLICIT + "'", "write 'at " + CaseValues.IMPLICIT + "', or leave 'at' out");
-                    continue;
-                }
-                diagnostics.error(e.caseSpan(), "there is no case named '" + e.caseName() + "'"
-                        + dev.plumb.lang.Names.closest(e.caseName(), caseNames).map(s -> "; did you mean '" + s + "'?").orElse(""));
-            }
-        }
-    }
-
-    // ---- symbols -----------------------------------------------------------------------------
-
-    private Map<String, Symbol> symbols() {
-        Map<String, Symbol> out = new LinkedHashMap<>();
-        for (Stmt s : declarations.values()) {
-            Symbol sym = null;
-            if (s instanceof Stmt.Param p) {
-                sym = p.value() != null ? fixedParam(p) : new Symbol.FreeParam(p.name(), p.nameSpan(), dim(p.name()), p.assumption(), p.bounds());
-            } else if (s instanceof Stmt.Coord c) {
-                sym = new Symbol.Coordinate(c.name(), c.nameSpan(), dim(c.name()), c.from(), c.to());
-            } else if (s instanceof Stmt.Let l) {
-                sym = new Symbol.Definition(l.name(), l.nameSpan(), dim(l.name()), l.params(),
-                        inference.letParams(l).stream().map(f -> inference.solver.known(f).orElse(Dimension.NONE)).toList(), l.body());
-            } else if (s instanceof Stmt.Unknown u && u.isProfile()) {
-                sym = new Symbol.Profile(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null, u.assumption());
-            } else if (s instanceof Stmt.Unknown u) {
-                sym = new Symbol.UnknownConstant(u.name(), u.nameSpan(), dim(u.name()), u.unit() == null,
-                        coord != null && (isName(coord.to(), u.name()) || isName(coord.from(), u.name())));
-            }
-            if (sym != null) out.put(sym.name(), sym);
-        }
-        Set<String> used = new HashSet<>();
-        for (Stmt s : program.statements()) used.addAll(References.names(s));
-        for (String name : Constants.all().keySet()) {
-            if (used.contains(name) && !out.containsKey(name)) out.put(name, new Symbol.Builtin(Constants.lookup(name).get()));
-        }
-        return out;
-    }
-
-    private Set<String> unknownNames() {
-        Set<String> out = new HashSet<>();
-        for (Stmt s : declarations.values()) if (s instanceof Stmt.Unknown u) out.add(u.name());
-        return out;
-    }
-
-    private static boolean isName(Expr e, String name) {
-        return e instanceof Expr.Name n && n.id().equals(name);
-    }
-
-    private Dimension dim(String name) {
-        return inference.solver.known(inference.symbolForm(name)).orElse(Dimension.NONE);
-    }
-
-    private void reportInferredUnits(Map<String, Symbol> symbols) {
-        for (Stmt s : declarations.values()) {
-            if (!(s instanceof Stmt.Unknown u) || u.unit() != null) continue;
-            Optional<Dimension> d = inference.solver.known(inference.symbolForm(u.name()));
-            if (d.isPresent()) {
-                String what = d.get().isNone() ? "dimensionless" : UnitCatalog.siName(d.get())
-                        + (UnitCatalog.siName(d.get()).equals(d.get().toString()) ? "" : " = " + d.get());
-                diagnostics.note(u.nameSpan(), "the unit of '" + u.name() + "' is inferred: " + what);
-            } else {
-                diagnostics.warning(u.nameSpan(), "the unit of '" + u.name() + "' cannot be inferred from the relations",
-                        "give it explicitly, e.g. unknown " + u.name() + " [Pa]");
-            }
-        }
     }
 }

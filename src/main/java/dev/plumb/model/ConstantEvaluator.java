@@ -10,7 +10,7 @@ import java.util.function.Function;
  * Evaluates an expression that involves no unknown and no coordinate (a fixed parameter, a case
  * value, a tolerance) to a double in SI base units.
  */
-public final class ConstantEvaluator {
+public final class ConstantEvaluator extends ExprEvaluator<ConstantEvaluator.NotConstant> {
 
     /** Raised when the expression needs something that is not a constant. */
     public static final class NotConstant extends Exception {
@@ -34,36 +34,17 @@ public final class ConstantEvaluator {
         this.bindings = bindings;
     }
 
-    public double evaluate(Expr e) throws NotConstant {
-        if (e instanceof Expr.Num n) return n.value();
-        if (e instanceof Expr.Quantity q) {
-            try {
-                return q.value() * UnitParser.parse(q.unit()).factor();
-            } catch (UnitException ex) {
-                throw new NotConstant(e, ex.getMessage());
-            }
+    @Override
+    protected double quantity(Expr.Quantity q) throws NotConstant {
+        try {
+            return q.value() * UnitParser.parse(q.unit()).factor();
+        } catch (UnitException ex) {
+            throw new NotConstant(q, ex.getMessage());
         }
-        if (e instanceof Expr.Name n) return name(n);
-        if (e instanceof Expr.Neg n) return -evaluate(n.operand());
-        if (e instanceof Expr.Binary b) {
-            double l = evaluate(b.left());
-            double r = evaluate(b.right());
-            return switch (b.op()) {
-                case ADD -> l + r;
-                case SUB -> l - r;
-                case MUL -> l * r;
-                case DIV -> l / r;
-                case POW -> Math.pow(l, r);
-            };
-        }
-        if (e instanceof Expr.If i) {
-            return i.condition().op().test(evaluate(i.condition().left()), evaluate(i.condition().right()))
-                    ? evaluate(i.then()) : evaluate(i.otherwise());
-        }
-        return call((Expr.Call) e);
     }
 
-    private double name(Expr.Name n) throws NotConstant {
+    @Override
+    protected double name(Expr.Name n) throws NotConstant {
         Double bound = bindings.get(n.id());
         if (bound != null) return bound;
         Symbol s = lookup.apply(n.id());
@@ -74,7 +55,8 @@ public final class ConstantEvaluator {
         throw new NotConstant(n, "'" + n.id() + "' has no fixed value here");
     }
 
-    private double call(Expr.Call c) throws NotConstant {
+    @Override
+    protected double call(Expr.Call c) throws NotConstant {
         Symbol s = lookup.apply(c.callee());
         // A declaration of the same name shadows a built-in function.
         if (s == null && c.order() == 0 && BuiltinFunction.lookup(c.callee()).isPresent() && c.args().size() == 1) {

@@ -7,11 +7,11 @@ import dev.plumb.lang.Program;
 import dev.plumb.lang.Stmt;
 import dev.plumb.units.UnitException;
 import dev.plumb.units.UnitParser;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.Function;
-import java.util.ArrayList;
 
 /**
  * Checks each {@code sweep} as a case is checked (the swept name is a free parameter, every other

@@ -3,6 +3,7 @@ package dev.plumb.numeric;
 import dev.plumb.lang.Expr;
 import dev.plumb.lang.ExprPrinter;
 import dev.plumb.model.BuiltinFunction;
+import dev.plumb.model.ExprEvaluator;
 import dev.plumb.model.Model;
 import dev.plumb.model.Symbol;
 import java.util.HashMap;
@@ -46,25 +47,33 @@ final class PointEvaluator {
 
     private double eval(Expr e, Map<String, Double> args, int depth) throws SolveException {
         if (depth > 200) throw new SolveException(e.span(), "definitions nest too deeply");
-        if (e instanceof Expr.Num n) return n.value();
-        if (e instanceof Expr.Quantity q) return q.value() * ExprCompiler.unitFactor(q);
-        if (e instanceof Expr.Name n) return name(n, args, depth);
-        if (e instanceof Expr.Neg n) return -eval(n.operand(), args, depth);
-        if (e instanceof Expr.Binary b) {
-            double l = eval(b.left(), args, depth), r = eval(b.right(), args, depth);
-            return switch (b.op()) {
-                case ADD -> l + r;
-                case SUB -> l - r;
-                case MUL -> l * r;
-                case DIV -> l / r;
-                case POW -> Math.pow(l, r);
-            };
+        return new Scope(args, depth).evaluate(e);
+    }
+
+    /** One level of definition calls: the arguments bound there and how deep the calls nest. */
+    private final class Scope extends ExprEvaluator<SolveException> {
+        private final Map<String, Double> args;
+        private final int depth;
+
+        Scope(Map<String, Double> args, int depth) {
+            this.args = args;
+            this.depth = depth;
         }
-        if (e instanceof Expr.If i) {
-            return i.condition().op().test(eval(i.condition().left(), args, depth), eval(i.condition().right(), args, depth))
-                    ? eval(i.then(), args, depth) : eval(i.otherwise(), args, depth);
+
+        @Override
+        protected double quantity(Expr.Quantity q) throws SolveException {
+            return q.value() * ExprCompiler.unitFactor(q);
         }
-        return call((Expr.Call) e, args, depth);
+
+        @Override
+        protected double name(Expr.Name n) throws SolveException {
+            return PointEvaluator.this.name(n, args, depth);
+        }
+
+        @Override
+        protected double call(Expr.Call c) throws SolveException {
+            return PointEvaluator.this.call(c, args, depth);
+        }
     }
 
     private double name(Expr.Name n, Map<String, Double> args, int depth) throws SolveException {

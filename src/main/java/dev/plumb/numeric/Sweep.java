@@ -2,13 +2,13 @@ package dev.plumb.numeric;
 
 import dev.plumb.lang.Expr;
 import dev.plumb.model.Model;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
-import java.util.ArrayList;
 
 /**
  * Solves one model at many parameter points on several threads (each solve compiles its own

@@ -1,7 +1,7 @@
 package dev.plumb.report;
 
-import dev.plumb.model.Status;
 import dev.plumb.lang.ExprPrinter;
+import dev.plumb.model.Status;
 import java.util.List;
 import java.util.Map;
 

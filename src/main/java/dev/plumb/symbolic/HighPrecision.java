@@ -2,11 +2,11 @@ package dev.plumb.symbolic;
 
 import java.math.BigDecimal;
 import java.math.BigInteger;
+import java.math.MathContext;
+import java.math.RoundingMode;
 import java.util.Map;
 import org.apfloat.Apfloat;
 import org.apfloat.ApfloatMath;
-import java.math.MathContext;
-import java.math.RoundingMode;
 import org.matheclipse.core.expression.S;
 import org.matheclipse.core.interfaces.IAST;
 import org.matheclipse.core.interfaces.IExpr;

@@ -7,8 +7,8 @@ import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.plumb.lang.Diagnostic;
-import dev.plumb.lang.Stmt;
 import dev.plumb.lang.Severity;
+import dev.plumb.lang.Stmt;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 
