@@ -16,7 +16,7 @@ import dev.plumb.numeric.SolveException;
 import dev.plumb.report.Analysis;
 import dev.plumb.scaling.Monomial;
 import dev.plumb.scaling.SolvedQuantity;
-import dev.plumb.scaling.Sweep;
+import dev.plumb.scaling.ParameterSensitivity;
 import dev.plumb.units.Rational;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -47,12 +47,12 @@ final class CaseAnalysis {
     }
 
     /** The quantity as a function of the free parameters, always by solving the relations numerically. */
-    Optional<Sweep.Quantity> numericQuantity(Expr e) {
+    Optional<ParameterSensitivity.Quantity> numericQuantity(Expr e) {
         return Optional.of(new SolvedQuantity(model, e, SWEEP_OPTIONS));
     }
 
     /** The quantity as a function of the free parameters: its closed form when known, else a numeric solve. */
-    Optional<Sweep.Quantity> quantity(Expr e) {
+    Optional<ParameterSensitivity.Quantity> quantity(Expr e) {
         Expr form = closedForms.get(ExprPrinter.print(e));
         if (form != null) return Optional.of(p -> new ConstantEvaluator(n -> model.symbols().get(n), p).evaluate(form));
         if (model.profiles().isEmpty() && model.unknownConstants().isEmpty()) {
@@ -92,16 +92,16 @@ final class CaseAnalysis {
             Analysis.Uncertainty unc = null;
             if (values != null && !model.freeParams().isEmpty() && Double.isFinite(q.numeric())) {
                 Expr e = dev.plumb.lang.Parser.parseExpression(q.expr());
-                Optional<Sweep.Quantity> f = e == null ? Optional.empty() : quantity(e);
+                Optional<ParameterSensitivity.Quantity> f = e == null ? Optional.empty() : quantity(e);
                 if (f.isPresent()) {
                     List<String> free = model.freeParams().stream().map(Symbol.FreeParam::name).toList();
                     try {
                         sens = exactSensitivities(q.expr(), free).orElse(null);
-                        if (sens == null) sens = Sweep.sensitivities(f.get(), values.values(), free, 1e-4);
+                        if (sens == null) sens = ParameterSensitivity.sensitivities(f.get(), values.values(), free, 1e-4);
                         if (!values.uncertainties().isEmpty()) {
                             boolean closed = closedForms.containsKey(q.expr()) || model.profiles().isEmpty();
                             int samples = closed ? 20_000 : 400;
-                            Sweep.Uncertainty u = Sweep.propagate(f.get(), values.values(), values.uncertainties(), sens, samples, SEED);
+                            ParameterSensitivity.Uncertainty u = ParameterSensitivity.propagate(f.get(), values.values(), values.uncertainties(), sens, samples, SEED);
                             unc = new Analysis.Uncertainty(u.firstOrder(), u.monteCarlo(), u.samplingError(), u.samples(), u.seed());
                         }
                     } catch (Exception ex) {

@@ -37,7 +37,7 @@ public record LogLogSweep(String parameter, double from, double to, double slope
     static final double SIGMAS = 4;
 
     /** Sweeps {@code parameter} over {@code points} log-spaced values from {@code from} to {@code to}, the others at {@code base}. */
-    public static LogLogSweep of(Sweep.Quantity q, Map<String, Double> base, String parameter, double from, double to,
+    public static LogLogSweep of(ParameterSensitivity.Quantity q, Map<String, Double> base, String parameter, double from, double to,
                                  int points) throws Exception {
         double[] lnP = new double[points];
         double[] lnQ = new double[points];
@@ -49,7 +49,7 @@ public record LogLogSweep(String parameter, double from, double to, double slope
             Map<String, Double> at = new HashMap<>(base);
             at.put(parameter, value);
             try {
-                Sweep.Estimate e = q.estimate(at);
+                ParameterSensitivity.Estimate e = q.estimate(at);
                 lnP[i] = Math.log(value);
                 lnQ[i] = Math.log(Math.abs(e.value()));
                 rel[i] = Math.abs(e.error() / e.value());
@@ -115,7 +115,7 @@ public record LogLogSweep(String parameter, double from, double to, double slope
      * truncation error (about 2e-7 times the third derivative) and the noise (the relative error
      * over 1e-3) both stay far below the drifts this number is shown for.
      */
-    public static double localExponent(Sweep.Quantity q, Map<String, Double> base, String parameter, double value)
+    public static double localExponent(ParameterSensitivity.Quantity q, Map<String, Double> base, String parameter, double value)
             throws Exception {
         double h = 1e-3;
         Map<String, Double> up = new HashMap<>(base);

@@ -31,14 +31,14 @@ public final class ScalingChecker {
 
     private final Model model;
     private final Map<String, Expr> closedForms;
-    private final Function<Expr, Optional<Sweep.Quantity>> numeric;
+    private final Function<Expr, Optional<ParameterSensitivity.Quantity>> numeric;
     private final Function<String, Symbol> lookup;
 
     /**
      * @param closedForms quantity as printed ("P(0)") → closed form in parameters and constants
      * @param numeric     a numeric evaluator of a quantity for given parameters, when the model can be solved
      */
-    public ScalingChecker(Model model, Map<String, Expr> closedForms, Function<Expr, Optional<Sweep.Quantity>> numeric) {
+    public ScalingChecker(Model model, Map<String, Expr> closedForms, Function<Expr, Optional<ParameterSensitivity.Quantity>> numeric) {
         this.model = model;
         this.closedForms = closedForms;
         this.numeric = numeric;
@@ -152,7 +152,7 @@ public final class ScalingChecker {
     private RouteFinding numericRoute(Expr lhs, Map<String, Rational> want) {
         if (want.isEmpty()) return RouteFinding.undecided("numeric sweep", "no free parameter to sweep");
         if (model.cases().isEmpty()) return RouteFinding.undecided("numeric sweep", "no case to sweep around");
-        Optional<Sweep.Quantity> q = numeric.apply(lhs);
+        Optional<ParameterSensitivity.Quantity> q = numeric.apply(lhs);
         if (q.isEmpty()) return RouteFinding.undecided("numeric sweep", "the model cannot be solved numerically");
         return new SweepRoute(model).judge("numeric sweep", q.get(), doubles(want));
     }
@@ -204,7 +204,7 @@ public final class ScalingChecker {
     }
 
     /** The value of a closed form at given parameter values (SI). */
-    public Sweep.Quantity closedFormQuantity(Expr form) {
+    public ParameterSensitivity.Quantity closedFormQuantity(Expr form) {
         return params -> new ConstantEvaluator(lookup, params).evaluate(form);
     }
 }

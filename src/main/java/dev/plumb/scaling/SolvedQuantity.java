@@ -13,7 +13,7 @@ import java.util.Map;
  * solve a hundred times tighter: the tighter value is returned and the difference bounds its error
  * from above, which is what a sweep needs to tell a curved log–log line from solver noise.
  */
-public final class SolvedQuantity implements Sweep.Quantity {
+public final class SolvedQuantity implements ParameterSensitivity.Quantity {
     private final Model model;
     private final Expr quantity;
     private final NumericOptions options;
@@ -36,10 +36,10 @@ public final class SolvedQuantity implements Sweep.Quantity {
     }
 
     @Override
-    public Sweep.Estimate estimate(Map<String, Double> parameters) throws Exception {
-        if (direct()) return Sweep.Quantity.super.estimate(parameters);
+    public ParameterSensitivity.Estimate estimate(Map<String, Double> parameters) throws Exception {
+        if (direct()) return ParameterSensitivity.Quantity.super.estimate(parameters);
         double coarse = at(parameters);
         double fine = NumericEngine.solve(model, parameters, options.tighter()).evaluate(quantity);
-        return new Sweep.Estimate(fine, Math.abs(fine - coarse));
+        return new ParameterSensitivity.Estimate(fine, Math.abs(fine - coarse));
     }
 }

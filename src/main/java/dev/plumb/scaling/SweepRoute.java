@@ -31,7 +31,7 @@ final class SweepRoute {
      * @param q     the quantity, evaluated at SI parameter values
      * @param want  the claimed exponent of each free parameter
      */
-    RouteFinding judge(String route, Sweep.Quantity q, Map<String, Double> want) {
+    RouteFinding judge(String route, ParameterSensitivity.Quantity q, Map<String, Double> want) {
         CaseValues base = model.cases().get(0);
         List<String> parts = new ArrayList<>();
         List<String> differences = new ArrayList<>();
@@ -83,7 +83,7 @@ final class SweepRoute {
     }
 
     /** d ln Q/d ln p at an end of the sweep; the end's local slope if the quantity cannot be evaluated just beyond it. */
-    private static double endExponent(Sweep.Quantity q, CaseValues base, LogLogSweep s, double at, double fallback) {
+    private static double endExponent(ParameterSensitivity.Quantity q, CaseValues base, LogLogSweep s, double at, double fallback) {
         try {
             double e = LogLogSweep.localExponent(q, base.values(), s.parameter(), at);
             return Double.isFinite(e) ? e : fallback;

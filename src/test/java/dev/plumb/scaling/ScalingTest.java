@@ -94,23 +94,23 @@ class ScalingTest {
     @Test
     void firstOrderUncertaintyOfAPowerLawAgreesWithMonteCarlo() throws Exception {
         // P ∝ M^2 R^-4 with 1 % on each: first order gives sqrt(2^2 + 4^2) % = 4.472 %.
-        Sweep.Quantity q = p -> p.get("M") * p.get("M") / Math.pow(p.get("R"), 4);
+        ParameterSensitivity.Quantity q = p -> p.get("M") * p.get("M") / Math.pow(p.get("R"), 4);
         Map<String, Double> base = Map.of("M", 2.0e30, "R", 7.0e8);
         Map<String, Double> sigma = Map.of("M", 2.0e28, "R", 7.0e6);
-        Map<String, Double> s = Sweep.sensitivities(q, base, List.of("M", "R"), 1e-4);
+        Map<String, Double> s = ParameterSensitivity.sensitivities(q, base, List.of("M", "R"), 1e-4);
         assertEquals(2.0, s.get("M"), 1e-7);
         assertEquals(-4.0, s.get("R"), 1e-7);
-        Sweep.Uncertainty u = Sweep.propagate(q, base, sigma, s, 20_000, 12345L);
+        ParameterSensitivity.Uncertainty u = ParameterSensitivity.propagate(q, base, sigma, s, 20_000, 12345L);
         double rel = u.firstOrder() / u.value();
         assertEquals(Math.sqrt(20) / 100, rel, 1e-9);
         assertEquals(u.firstOrder(), u.monteCarlo(), 4 * u.samplingError() + 0.01 * u.firstOrder());
-        Sweep.Uncertainty again = Sweep.propagate(q, base, sigma, s, 20_000, 12345L);
+        ParameterSensitivity.Uncertainty again = ParameterSensitivity.propagate(q, base, sigma, s, 20_000, 12345L);
         assertEquals(u.monteCarlo(), again.monteCarlo(), 0.0, "seeded runs are reproducible");
     }
 
     @Test
     void sweepRecoversPowerLawSlopesAndSeesTheLineStraight() throws Exception {
-        Sweep.Quantity q = p -> 3.0 * Math.pow(p.get("a"), 1.5) / p.get("b");
+        ParameterSensitivity.Quantity q = p -> 3.0 * Math.pow(p.get("a"), 1.5) / p.get("b");
         Map<String, Double> base = Map.of("a", 2.0, "b", 5.0);
         LogLogSweep a = LogLogSweep.of(q, base, "a", 0.2, 20.0, 9);
         LogLogSweep b = LogLogSweep.of(q, base, "b", 0.5, 50.0, 9);
@@ -122,7 +122,7 @@ class ScalingTest {
     @Test
     void aCurvedLogLogLineIsNotStraight() throws Exception {
         // Q = p + p^2 bends from slope 1 to slope 2: d ln Q / d ln p = (1 + 2p)/(1 + p).
-        Sweep.Quantity q = p -> p.get("p") + p.get("p") * p.get("p");
+        ParameterSensitivity.Quantity q = p -> p.get("p") + p.get("p") * p.get("p");
         LogLogSweep s = LogLogSweep.of(q, Map.of("p", 1.0), "p", 0.1, 10.0, 9);
         assertFalse(s.straight());
         assertEquals((1 + 2 * 0.1) / (1 + 0.1), LogLogSweep.localExponent(q, Map.of("p", 1.0), "p", 0.1), 1e-6);

@@ -11,8 +11,8 @@ import java.util.stream.IntStream;
  * Numeric scaling: quantities of the free parameters, local logarithmic sensitivities, and propagation
  * of parameter uncertainties, all on a quantity computed as a function of the free parameters.
  */
-public final class Sweep {
-    private Sweep() {
+public final class ParameterSensitivity {
+    private ParameterSensitivity() {
     }
 
     /**
