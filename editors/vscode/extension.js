@@ -39,6 +39,7 @@ class Server {
     this.child.on('error', (e) => vscode.window.showErrorMessage(
       `plumb: could not start '${this.launcher} lsp' (${e.message}); set plumb.launcher to the path of the plumb launcher.`));
     this.child.on('exit', (code) => { if (code) this.output.appendLine(`plumb lsp exited with status ${code}`); });
+    this.child.stdin.on('error', (e) => this.output.appendLine(`plumb lsp: ${e.message}`));
     this.child.stderr.on('data', (d) => this.output.append(d.toString()));
     this.child.stdout.on('data', (d) => this.receive(d));
 
