@@ -1,7 +1,7 @@
 package dev.plumb.cli;
 
-import dev.plumb.pipeline.Analyzer;
 import dev.plumb.lsp.PlumbLanguageServer;
+import dev.plumb.pipeline.Analyzer;
 import java.io.FileDescriptor;
 import java.io.FileOutputStream;
 import java.io.PrintStream;

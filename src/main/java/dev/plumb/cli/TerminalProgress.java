@@ -1,8 +1,8 @@
 package dev.plumb.cli;
 
-import dev.plumb.pipeline.Analyzer;
 import dev.plumb.model.Check;
 import dev.plumb.model.Model;
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.report.Style;
 import dev.plumb.report.TextReport;
 import java.io.PrintWriter;

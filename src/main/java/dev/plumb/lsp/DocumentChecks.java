@@ -1,7 +1,7 @@
 package dev.plumb.lsp;
 
-import dev.plumb.pipeline.Analyzer;
 import dev.plumb.lang.SourceFile;
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.report.Analysis;
 import java.util.List;
 import java.util.Map;

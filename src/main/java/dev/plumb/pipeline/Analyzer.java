@@ -1,6 +1,7 @@
 package dev.plumb.pipeline;
 
 import dev.plumb.lang.Diagnostics;
+import dev.plumb.lang.Expr;
 import dev.plumb.lang.Program;
 import dev.plumb.lang.SourceFile;
 import dev.plumb.lang.Span;
@@ -9,30 +10,29 @@ import dev.plumb.model.Check;
 import dev.plumb.model.Checker;
 import dev.plumb.model.Model;
 import dev.plumb.model.Status;
+import dev.plumb.numeric.CaseResult;
+import dev.plumb.numeric.NumericEngine;
+import dev.plumb.numeric.NumericOptions;
+import dev.plumb.numeric.NumericResult;
 import dev.plumb.report.Analysis;
+import dev.plumb.scaling.ScaleLength;
+import dev.plumb.scaling.ScalingChecker;
+import dev.plumb.symbolic.Derived;
+import dev.plumb.symbolic.SymbolicEngine;
+import dev.plumb.symbolic.SymbolicOptions;
+import dev.plumb.symbolic.SymbolicResult;
+import dev.plumb.units.UnitCatalog;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.function.Supplier;
-import dev.plumb.lang.Expr;
-import dev.plumb.numeric.CaseResult;
-import dev.plumb.numeric.NumericEngine;
-import dev.plumb.numeric.NumericOptions;
-import dev.plumb.numeric.NumericResult;
-import dev.plumb.scaling.ScaleLength;
-import dev.plumb.symbolic.Derived;
-import dev.plumb.symbolic.SymbolicEngine;
-import dev.plumb.symbolic.SymbolicOptions;
-import dev.plumb.symbolic.SymbolicResult;
-import dev.plumb.units.UnitCatalog;
-import java.util.LinkedHashMap;
-import dev.plumb.scaling.ScalingChecker;
 
 /** Runs the stages in order on one file: text, syntax tree, checked model, verdicts, report data. */
 public final class Analyzer {

@@ -1,6 +1,5 @@
 package dev.plumb.cli;
 
-import dev.plumb.pipeline.Analyzer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -9,6 +8,7 @@ import dev.plumb.lang.Parser;
 import dev.plumb.lang.SourceFile;
 import dev.plumb.model.Checker;
 import dev.plumb.model.Model;
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.report.Style;
 import dev.plumb.report.TextReport;
 import java.io.PrintWriter;

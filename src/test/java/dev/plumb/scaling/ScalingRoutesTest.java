@@ -5,10 +5,10 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.plumb.pipeline.Analyzer;
 import dev.plumb.lang.SourceFile;
 import dev.plumb.model.Check;
 import dev.plumb.model.Status;
+import dev.plumb.pipeline.Analyzer;
 import dev.plumb.report.Analysis;
 import java.nio.file.Files;
 import java.nio.file.Path;
