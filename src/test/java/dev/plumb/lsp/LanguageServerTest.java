@@ -8,8 +8,6 @@ import static org.junit.jupiter.api.Assertions.fail;
 
 import dev.plumb.pipeline.Analyzer;
 import java.io.IOException;
-import java.io.PipedInputStream;
-import java.io.PipedOutputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -70,12 +68,27 @@ class LanguageServerTest {
     @BeforeEach
     void start() throws IOException {
         sphere = Files.readString(Path.of("derivations/uniform-sphere.plumb"));
-        PipedInputStream serverIn = new PipedInputStream(1 << 16);
-        PipedOutputStream toServer = new PipedOutputStream(serverIn);
-        PipedInputStream clientIn = new PipedInputStream(1 << 16);
-        PipedOutputStream toClient = new PipedOutputStream(clientIn);
+        // Channel pipes, not java.io's piped streams: a piped stream fails its reader once the thread that
+        // last wrote to it has ended ("write end dead"), and the server writes from pooled threads that
+        // its shutdown stops, which made the reply to 'shutdown' go missing now and then.
+        java.nio.channels.Pipe up = java.nio.channels.Pipe.open();
+        java.nio.channels.Pipe down = java.nio.channels.Pipe.open();
+        java.io.InputStream serverIn = java.nio.channels.Channels.newInputStream(up.source());
+        java.io.OutputStream toServer = java.nio.channels.Channels.newOutputStream(up.sink());
+        java.io.InputStream clientIn = java.nio.channels.Channels.newInputStream(down.source());
+        java.io.OutputStream toClient = java.nio.channels.Channels.newOutputStream(down.sink());
         Analyzer analyzer = new Analyzer(Analyzer.Options.defaults());
-        serverExit = CompletableFuture.supplyAsync(() -> PlumbLanguageServer.serve(analyzer, serverIn, toClient, false));
+        // On a thread of its own: the common pool has one worker on two cores, and the server blocks for its lifetime.
+        serverExit = new CompletableFuture<>();
+        Thread serving = new Thread(() -> {
+            try {
+                serverExit.complete(PlumbLanguageServer.serve(analyzer, serverIn, toClient, false));
+            } catch (Throwable t) {
+                serverExit.completeExceptionally(t);
+            }
+        }, "test-lsp-server");
+        serving.setDaemon(true);
+        serving.start();
         client = LSPLauncher.createClientLauncher(new Editor(), clientIn, toServer);
         client.startListening();
         server = client.getRemoteProxy();
