@@ -135,6 +135,45 @@ public final class SymbolicEngine {
     }
 
     /** Every point value ({@code P(0)}, {@code m(R)}) that a claim, expectation, show or scaling asks for. */
+    /**
+     * A profile's value at a point the file wrote as a quantity in a unit other than SI ({@code P(11 [km])}),
+     * printed with that quantity in place ({@code P0*(1 - L*(11 [km])/T0)^...}) rather than its SI number
+     * (11000): the profile's closed form as printed, with the coordinate replaced by the quantity. Empty for
+     * any other call, and for a piecewise profile (whose printed value is the branch the point picks).
+     */
+    private static java.util.Optional<Expr> inFileUnits(Expr.Call c, Map<String, IExpr> profiles, SymbolTable table,
+                                                        ClosedForms closedForms, PlumbForm form) {
+        IExpr known = profiles.get(c.callee());
+        if (known == null || c.order() != 0 || c.args().size() != 1 || !(c.args().get(0) instanceof Expr.Quantity q)) {
+            return java.util.Optional.empty();
+        }
+        try {
+            if (dev.plumb.units.UnitParser.parse(q.unit()).factor() == 1.0 || known.has(org.matheclipse.core.expression.S.Piecewise, true)) {
+                return java.util.Optional.empty();
+            }
+            String x = table.name(table.coordinate);
+            return java.util.Optional.of(substitute(form.readable(closedForms.neat(known)), x, q));
+        } catch (dev.plumb.units.UnitException | Translation.Untranslatable | Symja.Failure ex) {
+            return java.util.Optional.empty();
+        }
+    }
+
+    /** {@code e} with every occurrence of the name {@code x} replaced by {@code by}. */
+    private static Expr substitute(Expr e, String x, Expr by) {
+        if (e instanceof Expr.Name n) return n.id().equals(x) ? by : n;
+        if (e instanceof Expr.Neg n) return new Expr.Neg(substitute(n.operand(), x, by), n.span());
+        if (e instanceof Expr.Binary b) return new Expr.Binary(b.op(), substitute(b.left(), x, by), substitute(b.right(), x, by), b.span());
+        if (e instanceof Expr.Call c) {
+            return new Expr.Call(c.callee(), c.calleeSpan(), c.order(), c.args().stream().map(a -> substitute(a, x, by)).toList(), c.span());
+        }
+        if (e instanceof Expr.If i) {
+            Expr.Condition k = i.condition();
+            return new Expr.If(new Expr.Condition(k.op(), substitute(k.left(), x, by), substitute(k.right(), x, by), k.span()),
+                    substitute(i.then(), x, by), substitute(i.otherwise(), x, by), i.span());
+        }
+        return e;
+    }
+
     private static List<Derived> pointValues(Model model, Symja symja, SymbolTable table, ClosedForms closedForms,
                                              Map<String, IExpr> profiles, Map<String, IExpr> constants, PlumbForm form,
                                              List<String> notes) {
@@ -158,7 +197,7 @@ public final class SymbolicEngine {
                 IExpr value = symja.eval(t.plain(c));
                 if (t.mentionsUnknownProfile(value) || !t.unknownConstantsIn(value).isEmpty()) continue;
                 IExpr simple = closedForms.neat(value);
-                Expr e = form.readable(simple);
+                Expr e = inFileUnits(c, profiles, table, closedForms, form).orElse(form.readable(simple));
                 Dimension d = model.dimensionOf(c);
                 List<TrailStep> trail = List.of(
                         new TrailStep(profiles.containsKey(c.callee()) ? "substitute the closed form of " + c.callee()
