@@ -127,11 +127,8 @@ final class Sampler {
      * hold for every value its declarations allow, and sqrt(a^2) = a holds only for half of them.
      */
     private BigDecimal sign(ISymbol sym) {
-        if (signed == null) signed = table.signed();
-        return signed.contains(sym) && random.nextBoolean() ? BigDecimal.ONE.negate() : BigDecimal.ONE;
+        return table.signed().contains(sym) && random.nextBoolean() ? BigDecimal.ONE.negate() : BigDecimal.ONE;
     }
-
-    private java.util.Set<ISymbol> signed;
 
     private BigDecimal uniform(double lo, double hi) {
         double v = lo + (hi - lo) * random.nextDouble();

@@ -163,8 +163,16 @@ final class SymbolTable {
      * interval may start below 0. Rewrites that hold only for positive bases (PowerExpand) are not
      * used on expressions that hold them, and sample points give them both signs.
      */
-    java.util.Set<ISymbol> signed() {
-        java.util.Set<ISymbol> out = new LinkedHashSet<>();
+    Set<ISymbol> signed() {
+        // Parameters and the coordinate get their symbols in the constructor (only built-ins come later), so once is enough.
+        if (signed == null) signed = java.util.Collections.unmodifiableSet(signedSymbols());
+        return signed;
+    }
+
+    private Set<ISymbol> signed;
+
+    private Set<ISymbol> signedSymbols() {
+        Set<ISymbol> out = new LinkedHashSet<>();
         for (Symbol s : model.symbols().values()) {
             ISymbol sym = toSymja.get(s.name());
             if (sym == null) continue;

@@ -80,7 +80,7 @@ public final class SymbolicEngine {
             constantForms.put(name, e);
             derived.add(new Derived(name, e, ExprPrinter.print(e), model.symbols().get(name).dimension(), trails.get(name)));
         });
-        derived.addAll(pointValues(model, symja, table, closedForms, settled, constants, form, notes));
+        derived.addAll(pointValues(model, symja, table, closedForms, settled, profiles, constants, form, notes));
 
         Verification verification = new Verification(symja, table, assumptions, settled, constants);
         List<Check> checks = new ArrayList<>();
@@ -138,24 +138,24 @@ public final class SymbolicEngine {
     /**
      * A profile's value at a point the file wrote as a quantity in a unit other than SI ({@code P(11 [km])}),
      * printed with that quantity in place ({@code P0*(1 - L*(11 [km])/T0)^...}) rather than its SI number
-     * (11000): the profile's closed form as printed, with the coordinate replaced by the quantity. Empty for
+     * (11000): the profile's closed form as already printed, with the coordinate replaced by the quantity. Empty for
      * any other call, and for a piecewise profile (whose printed value is the branch the point picks).
      */
-    private static java.util.Optional<Expr> inFileUnits(Expr.Call c, Map<String, IExpr> profiles, SymbolTable table,
-                                                        ClosedForms closedForms, PlumbForm form) {
+    private static java.util.Optional<Expr> inFileUnits(Expr.Call c, Map<String, IExpr> profiles, Map<String, Expr> printed,
+                                                        SymbolTable table) {
         IExpr known = profiles.get(c.callee());
-        if (known == null || c.order() != 0 || c.args().size() != 1 || !(c.args().get(0) instanceof Expr.Quantity q)) {
+        Expr shown = printed.get(c.callee());
+        if (known == null || shown == null || c.order() != 0 || c.args().size() != 1 || !(c.args().get(0) instanceof Expr.Quantity q)) {
             return java.util.Optional.empty();
         }
         try {
             if (dev.plumb.units.UnitParser.parse(q.unit()).factor() == 1.0 || known.has(org.matheclipse.core.expression.S.Piecewise, true)) {
                 return java.util.Optional.empty();
             }
-            String x = table.name(table.coordinate);
-            return java.util.Optional.of(substitute(form.readable(closedForms.neat(known)), x, q));
-        } catch (dev.plumb.units.UnitException | Translation.Untranslatable | Symja.Failure ex) {
+        } catch (dev.plumb.units.UnitException ex) {
             return java.util.Optional.empty();
         }
+        return java.util.Optional.of(substitute(shown, table.name(table.coordinate), q));
     }
 
     /** {@code e} with every occurrence of the name {@code x} replaced by {@code by}. */
@@ -175,8 +175,8 @@ public final class SymbolicEngine {
     }
 
     private static List<Derived> pointValues(Model model, Symja symja, SymbolTable table, ClosedForms closedForms,
-                                             Map<String, IExpr> profiles, Map<String, IExpr> constants, PlumbForm form,
-                                             List<String> notes) {
+                                             Map<String, IExpr> profiles, Map<String, Expr> printed, Map<String, IExpr> constants,
+                                             PlumbForm form, List<String> notes) {
         Set<String> seen = new LinkedHashSet<>();
         List<Expr.Call> calls = new ArrayList<>();
         List<Expr> roots = new ArrayList<>();
@@ -196,8 +196,8 @@ public final class SymbolicEngine {
             try {
                 IExpr value = symja.eval(t.plain(c));
                 if (t.mentionsUnknownProfile(value) || !t.unknownConstantsIn(value).isEmpty()) continue;
-                IExpr simple = closedForms.neat(value);
-                Expr e = inFileUnits(c, profiles, table, closedForms, form).orElse(form.readable(simple));
+                java.util.Optional<Expr> inPlace = inFileUnits(c, profiles, printed, table);
+                Expr e = inPlace.isPresent() ? inPlace.get() : form.readable(closedForms.neat(value));
                 Dimension d = model.dimensionOf(c);
                 List<TrailStep> trail = List.of(
                         new TrailStep(profiles.containsKey(c.callee()) ? "substitute the closed form of " + c.callee()

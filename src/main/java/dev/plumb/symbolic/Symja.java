@@ -60,11 +60,9 @@ final class Symja {
         // Time limits inside Symja (its own TimeConstrained) would run on the clock: the session's CPU budget bounds them.
         Config.TIMECONSTRAINED_NO_THREAD = true;
         Config.MAX_AST_SIZE = 1_000_000;
-        // No threads of Symja's own: its integration rules would otherwise start loading on a thread at start-up
-        // in every run (a fifth of a simple file's CPU, for files that never need them), and work on other threads
-        // would escape the CPU budget, which is measured on the worker thread. The rules load on the first
-        // antiderivative that needs them (loadIntegrationRules).
-        Config.JAS_NO_THREADS = true;
+        // Symja keeps its own start-up thread for its integration rules (Config.JAS_NO_THREADS stays false): loaded
+        // on a caller's thread instead, they could be interrupted half-way by a cancelled check (the language server
+        // cancels on every edit), leaving the rules marked as read but never finished, and the next integral waiting.
     }
 
     private static boolean integrationRulesLoaded;
